@@ -1,0 +1,83 @@
+/**
+ * Every command and option of the command line, declared once as data. Parsing (parse.ts),
+ * help text (help.ts) and running (main.ts) all read these declarations.
+ */
+export interface OptionSpec {
+  name: string;
+  short?: string;
+  type: 'string' | 'boolean';
+  multiple?: boolean;
+  /** Placeholder shown in help for string options. */
+  value?: string;
+  description: string;
+  /** Default as shown in help. */
+  default?: string;
+}
+
+export interface CommandSpec {
+  name: string;
+  summary: string;
+  positionals: { name: string; required: boolean; description: string }[];
+  options: OptionSpec[];
+  examples: string[];
+}
+
+const SET: OptionSpec = {
+  name: 'set',
+  type: 'string',
+  multiple: true,
+  value: 'KEY=VALUE',
+  description: 'override one study setting for this run, e.g. --set grid.scale=1,2,8 (repeatable)',
+};
+const OUT: OptionSpec = {
+  name: 'out',
+  short: 'o',
+  type: 'string',
+  value: 'DIR',
+  description: 'output folder (replaced atomically when the run completes)',
+  default: 'reports/<study name>/<time>-<hash>',
+};
+const HELP: OptionSpec = { name: 'help', short: 'h', type: 'boolean', description: 'show this help' };
+const QUIET: OptionSpec = { name: 'quiet', short: 'q', type: 'boolean', description: 'print only errors and the final summary' };
+
+export const COMMANDS: CommandSpec[] = [
+  {
+    name: 'init',
+    summary: 'write a commented study file to start from',
+    positionals: [{ name: 'FILE', required: false, description: 'where to write it (default study.yaml)' }],
+    options: [
+      { name: 'name', type: 'string', value: 'NAME', description: 'the study name to put in the file', default: 'my-study' },
+      { name: 'force', type: 'boolean', description: 'overwrite FILE if it exists' },
+      HELP,
+    ],
+    examples: ['patternfold init studies/fatigue.yaml --name fresh-vs-fatigued'],
+  },
+  {
+    name: 'check',
+    summary: 'validate a study and read every recording, without computing features',
+    positionals: [{ name: 'STUDY', required: true, description: 'the study file (YAML)' }],
+    options: [SET, HELP],
+    examples: ['patternfold check studies/demo.yaml', 'patternfold check studies/demo.yaml --set evaluation.folds=3'],
+  },
+  {
+    name: 'features',
+    summary: 'compute the feature table only (features.csv, quality.csv, results.json)',
+    positionals: [{ name: 'STUDY', required: true, description: 'the study file (YAML)' }],
+    options: [OUT, SET, QUIET, HELP],
+    examples: ['patternfold features studies/demo.yaml --out reports/demo-features'],
+  },
+  {
+    name: 'run',
+    summary: 'run the whole study: features, statistics, report',
+    positionals: [{ name: 'STUDY', required: true, description: 'the study file (YAML)' }],
+    options: [OUT, SET, QUIET, HELP],
+    examples: ['patternfold run studies/demo.yaml --out reports/demo', 'patternfold run studies/demo.yaml --set grid.scale=1,2,8 --set evaluation.permutations=199'],
+  },
+  {
+    name: 'schema',
+    summary: 'print the JSON Schema of study files (for editor completion)',
+    positionals: [],
+    options: [{ name: 'out', short: 'o', type: 'string', value: 'FILE', description: 'write it to FILE instead of standard output' }, HELP],
+    examples: ['patternfold schema --out study.schema.json'],
+  },
+];

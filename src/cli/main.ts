@@ -1,0 +1,133 @@
+/**
+ * The command line: a thin shell over the library. Parses, calls run/, prints, and maps
+ * errors to exit codes in one place: 0 success, 2 bad input or usage, 1 internal error.
+ */
+import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import { InputError } from '../shared/errors.ts';
+import { loadStudy, STUDY_SCHEMA, studyTemplate, type Study } from '../study/index.ts';
+import { checkStudy, runStudy, sha256Text, TOOL_VERSION, type RunOutcome } from '../run/index.ts';
+import { commandHelp, mainHelp } from './help.ts';
+import { findCommand, parseCommand, type ParsedCommand } from './parse.ts';
+import { formatTable, processIo, safeText, type Io } from './terminal.ts';
+
+const percent = (x: number) => (Number.isFinite(x) ? `${(100 * x).toFixed(1)}%` : '-');
+
+/** Default output folder of a run: reports/<study name>/<UTC time>-<study hash>. */
+export function defaultOutFolder(study: Study, now: Date): string {
+  const slug = study.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'study';
+  const stamp = now.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z').replace('T', '-');
+  const hash = sha256Text(study.text + '\n' + study.overrides.join('\n')).slice(0, 8);
+  return `reports/${slug}/${stamp}-${hash}`;
+}
+
+function loadFromArgs(cmd: ParsedCommand): Study {
+  return loadStudy(cmd.positionals[0], { overrides: (cmd.values.set as string[] | undefined) ?? [] });
+}
+
+function runInit(cmd: ParsedCommand, io: Io): number {
+  const file = cmd.positionals[0] ?? 'study.yaml';
+  if (existsSync(file) && !cmd.values.force) throw new InputError(`${file}: already exists — choose another name or add --force to overwrite it`);
+  mkdirSync(dirname(resolve(file)), { recursive: true });
+  writeFileSync(file, studyTemplate(String(cmd.values.name ?? 'my-study')));
+  io.out(`wrote ${safeText(file)}: edit the groups, then run: patternfold check ${safeText(file)}`);
+  return 0;
+}
+
+async function runCheck(cmd: ParsedCommand, io: Io): Promise<number> {
+  const study = loadFromArgs(cmd);
+  const report = await checkStudy(study);
+  const rows = [['recording', 'group', 'samples', 'missing', 'adjacent ties', 'format', 'channel']];
+  for (const r of report.recordings) {
+    rows.push([
+      safeText(r.recording.id),
+      safeText(r.recording.group),
+      String(r.summary.length),
+      percent(r.summary.missing / Math.max(1, r.summary.length)),
+      percent(r.summary.tiedShare),
+      r.format,
+      safeText(r.channel),
+    ]);
+  }
+  io.out(`study '${safeText(study.name)}' (${safeText(study.file)}) is valid.\n`);
+  io.out(formatTable(rows) + '\n');
+  io.out(study.groups.map((g) => `${safeText(g)}: ${report.subjectsPerGroup[g]} subject(s)`).join(', '));
+  const cells = study.grid.order.length * study.grid.delay.length * study.grid.scale.length;
+  io.out(`grid: order ${study.grid.order.join(',')} x delay ${study.grid.delay.join(',')} x scale ${study.grid.scale.join(',')} = ${cells} cell(s)`);
+  if (report.warnings.length === 0) io.out('no warnings.');
+  else io.out(`\n${report.warnings.length} warning(s):\n` + report.warnings.map((w) => `  - ${safeText(w)}`).join('\n'));
+  return 0;
+}
+
+async function runPipeline(cmd: ParsedCommand, io: Io, stage: 'features' | 'all', argv: string[]): Promise<number> {
+  const study = loadFromArgs(cmd);
+  const out = (cmd.values.out as string | undefined) ?? defaultOutFolder(study, new Date());
+  const quiet = Boolean(cmd.values.quiet);
+  const outcome: RunOutcome = await runStudy(study, {
+    out,
+    stage,
+    commandLine: ['patternfold', ...argv].join(' '),
+    onProgress: quiet ? undefined : (name, done, total) => {
+      if (done === total || done % 10 === 0) io.err(`${name}: ${done}/${total}`);
+    },
+  });
+  if (!quiet && outcome.warnings.length > 0) io.err(`${outcome.warnings.length} warning(s):\n` + outcome.warnings.map((w) => `  - ${safeText(w)}`).join('\n'));
+  io.out(`wrote ${outcome.files.map((f) => safeText(`${out}/${f}`)).join(', ')}`);
+  return 0;
+}
+
+function runSchema(cmd: ParsedCommand, io: Io): number {
+  const text = JSON.stringify(STUDY_SCHEMA, null, 2) + '\n';
+  if (cmd.values.out) {
+    writeFileSync(String(cmd.values.out), text);
+    io.out(`wrote ${safeText(String(cmd.values.out))}`);
+  } else io.out(text);
+  return 0;
+}
+
+async function dispatch(argv: string[], io: Io): Promise<number> {
+  const [first, ...rest] = argv;
+  if (first === undefined || first === '--help' || first === '-h' || first === 'help') {
+    io.out(mainHelp(TOOL_VERSION));
+    return first === undefined ? 2 : 0;
+  }
+  if (first === '--version' || first === '-v') {
+    io.out(TOOL_VERSION);
+    return 0;
+  }
+  const cmd = parseCommand(findCommand(first), rest);
+  if (cmd.values.help) {
+    io.out(commandHelp(cmd.spec));
+    return 0;
+  }
+  switch (cmd.spec.name) {
+    case 'init':
+      return runInit(cmd, io);
+    case 'check':
+      return runCheck(cmd, io);
+    case 'features':
+      return runPipeline(cmd, io, 'features', argv);
+    case 'run':
+      return runPipeline(cmd, io, 'all', argv);
+    case 'schema':
+      return runSchema(cmd, io);
+    default:
+      throw new Error(`command ${cmd.spec.name} is declared but has no handler`);
+  }
+}
+
+/** Runs the command line and returns the exit code. Never throws. */
+export async function main(argv: string[], io: Io = processIo): Promise<number> {
+  try {
+    return await dispatch(argv, io);
+  } catch (e) {
+    if (e instanceof InputError) {
+      io.err(`patternfold: ${safeText(e.message)}`);
+      return 2;
+    }
+    const error = e as Error;
+    io.err(`patternfold: internal error: ${safeText(error?.message ?? String(e))}`);
+    io.err(process.env.PATTERNFOLD_DEBUG ? String(error?.stack) : 'Set PATTERNFOLD_DEBUG=1 for details, and please report it with the command you ran.');
+    return 1;
+  }
+}
