@@ -12,7 +12,8 @@ export type MannWhitneyMethod = 'auto' | 'exact' | 'normal';
 export interface MannWhitneyOptions {
   /**
    * `auto` (default): exact null distribution when there are no ties and n0 + n1 <=
-   * {@link EXACT_MAX_TOTAL}, the normal approximation otherwise. `exact` throws on ties.
+   * {@link EXACT_MAX_TOTAL}, the normal approximation otherwise. `exact` throws on ties and
+   * above {@link EXACT_FORCED_MAX_TOTAL} values.
    */
   method?: MannWhitneyMethod;
   /** Continuity correction of the normal approximation (default true). */
@@ -78,36 +79,67 @@ export function mannWhitneyU(
   if (method === 'exact' && tied) {
     throw new RangeError('mannWhitneyU: the exact null distribution assumes no ties — use method "normal" or "auto"');
   }
+  if (method === 'exact' && n0 + n1 > EXACT_FORCED_MAX_TOTAL) {
+    throw new RangeError(
+      `mannWhitneyU: exact distribution limited to ${EXACT_FORCED_MAX_TOTAL} values, got ${n0 + n1} — use method "normal" or "auto"`,
+    );
+  }
   const useExact = method === 'exact' || (method === 'auto' && !tied && n0 + n1 <= EXACT_MAX_TOTAL);
   if (useExact) return { n0, n1, u, auc, z, p: exactTwoSidedP(u, n0, n1), method: 'exact', reason: null };
   if (Number.isNaN(z)) return { n0, n1, u, auc, z, p: Number.NaN, method: null, reason: 'all values are tied' };
   return { n0, n1, u, auc, z, p: Math.min(1, 2 * normalUpperTail(Math.abs(z))), method: 'normal', reason: null };
 }
 
+/** Largest n0 + n1 for which `method: 'exact'` may be forced (exact big-integer counts; cost grows as n³). */
+export const EXACT_FORCED_MAX_TOTAL = 300;
+
 /**
  * Counts of the Mann–Whitney U statistic under the null hypothesis (no ties): entry k is the
  * number of the C(n0+n1, n0) equally likely arrangements with U = k, k = 0..n0·n1. Computed as
  * the coefficients of the q-binomial coefficient [n0+n1 choose n0]_q, multiplying by
- * (1 − q^{n1+i}) and dividing by (1 − q^i) for i = 1..n0. Counts are exact while
- * C(n0+n1, n0) < 2^52 (true for n0 + n1 <= 50). O(n0·n1·n0) time.
+ * (1 − q^{n1+i}) and dividing by (1 − q^i) for i = 1..min(n0, n1) (the distribution is
+ * symmetric in n0 and n1). In doubles the counts are exact while C(n0+n1, n0) < 2^52, which
+ * holds for n0 + n1 <= 50; larger sizes are counted in BigInt and rounded at the end.
+ * O(n0·n1·min(n0, n1)) time.
  *
  * @example exactUCounts(2, 2) // Float64Array [1, 1, 2, 1, 1]
  */
 export function exactUCounts(n0: number, n1: number): Float64Array {
+  if (n0 + n1 > EXACT_MAX_TOTAL) return Float64Array.from(qBinomialBig(n0, n1), Number);
+  const small = Math.min(n0, n1);
+  const large = Math.max(n0, n1);
   const maxU = n0 * n1;
-  const poly = new Float64Array(maxU + n0 + 1);
+  const poly = new Float64Array(maxU + small + 1);
   poly[0] = 1;
   let degree = 0;
-  for (let i = 1; i <= n0; i++) {
-    const shift = n1 + i;
+  for (let i = 1; i <= small; i++) {
+    const shift = large + i;
     for (let k = degree + shift; k >= shift; k--) poly[k] -= poly[k - shift];
     for (let k = i; k <= degree + shift; k++) poly[k] += poly[k - i];
-    degree += n1;
+    degree += large;
+  }
+  return poly.slice(0, maxU + 1);
+}
+
+/** The same recursion as {@link exactUCounts} in exact big-integer arithmetic. */
+function qBinomialBig(n0: number, n1: number): bigint[] {
+  const small = Math.min(n0, n1);
+  const large = Math.max(n0, n1);
+  const maxU = n0 * n1;
+  const poly: bigint[] = new Array<bigint>(maxU + small + 1).fill(0n);
+  poly[0] = 1n;
+  let degree = 0;
+  for (let i = 1; i <= small; i++) {
+    const shift = large + i;
+    for (let k = degree + shift; k >= shift; k--) poly[k] -= poly[k - shift];
+    for (let k = i; k <= degree + shift; k++) poly[k] += poly[k - i];
+    degree += large;
   }
   return poly.slice(0, maxU + 1);
 }
 
 function exactTwoSidedP(u: number, n0: number, n1: number): number {
+  if (n0 + n1 > EXACT_MAX_TOTAL) return exactTwoSidedPBig(u, n0, n1);
   const counts = exactUCounts(n0, n1);
   let below = 0;
   let above = 0;
@@ -118,6 +150,27 @@ function exactTwoSidedP(u: number, n0: number, n1: number): number {
     if (k >= u) above += counts[k];
   }
   return Math.min(1, (2 * Math.min(below, above)) / total);
+}
+
+function exactTwoSidedPBig(u: number, n0: number, n1: number): number {
+  const counts = qBinomialBig(n0, n1);
+  let below = 0n;
+  let above = 0n;
+  let total = 0n;
+  for (let k = 0; k < counts.length; k++) {
+    total += counts[k];
+    if (k <= u) below += counts[k];
+    if (k >= u) above += counts[k];
+  }
+  const tail = below < above ? below : above;
+  return Math.min(1, 2 * bigRatio(tail, total));
+}
+
+/** a/b for big integers 0 <= a <= b, to double precision even when b exceeds the double range. */
+function bigRatio(a: bigint, b: bigint): number {
+  const excessBits = Math.max(0, b.toString(2).length - 1000);
+  const shift = BigInt(excessBits);
+  return Number(a >> shift) / Number(b >> shift);
 }
 
 function normalStatistic(u: number, n0: number, n1: number, tieSum: number, continuity: boolean): number {
@@ -166,7 +219,7 @@ export function normalUpperTail(z: number): number {
 
 /**
  * Standard normal quantile: z with P(Z <= z) = p. Starts from the rational approximation of
- * Abramowitz & Stegun (1964) eq. 26.2.23 (error < 4.5e-4) and refines it with two Halley
+ * Abramowitz & Stegun (1964) eq. 26.2.23 (error < 4.5e-4) and refines it with three Halley
  * steps on {@link normalUpperTail}. Returns −Infinity at 0, +Infinity at 1, NaN outside [0, 1].
  *
  * @example normalQuantile(0.975) // 1.959963984540054 (to about 1e-15)
@@ -175,15 +228,20 @@ export function normalQuantile(p: number): number {
   if (!(p >= 0 && p <= 1)) return Number.NaN;
   if (p === 0) return Number.NEGATIVE_INFINITY;
   if (p === 1) return Number.POSITIVE_INFINITY;
-  let z = p < 0.5 ? -upperTailGuess(p) : upperTailGuess(1 - p);
-  for (let step = 0; step < 2; step++) {
-    const cdf = p < 0.5 ? normalUpperTail(-z) : 1 - normalUpperTail(z);
-    const density = Math.exp(-0.5 * z * z) / Math.sqrt(2 * Math.PI);
+  // 1 − p is exact for p >= 0.5 (Sterbenz), so both halves solve Q(x) = q with q <= 0.5.
+  return p < 0.5 ? -upperQuantile(p) : upperQuantile(1 - p);
+}
+
+/** x >= 0 with Q(x) = q, 0 < q <= 0.5: A&S 26.2.23 then Halley steps x += e/(1 − x·e/2), e = (Q(x) − q)/φ(x). */
+function upperQuantile(q: number): number {
+  let x = upperTailGuess(q);
+  for (let step = 0; step < 3; step++) {
+    const density = Math.exp(-0.5 * x * x) / Math.sqrt(2 * Math.PI);
     if (!(density > 0)) break;
-    const e = (cdf - p) / density;
-    z -= e / (1 + (z * e) / 2);
+    const e = (normalUpperTail(x) - q) / density;
+    x += e / (1 - (x * e) / 2);
   }
-  return z;
+  return x;
 }
 
 /** A&S 26.2.23: x with Q(x) ≈ q for 0 < q <= 0.5. */
