@@ -25,7 +25,7 @@ export interface SeriesSummary {
  *
  * @returns for empty input `{ length: 0, missing: 0, longestGap: 0, distinct: 0, tiedShare: NaN }`.
  * @example describeSeries(Float64Array.of(1, 1, NaN, NaN, 2, 2, 3))
- *   // { length: 7, missing: 2, longestGap: 2, distinct: 3, tiedShare: 0.5 }
+ *   // { length: 7, missing: 2, longestGap: 2, distinct: 3, tiedShare: 2/3 } (present neighbours 1-1, 2-2, 2-3)
  */
 export function describeSeries(values: Float64Array): SeriesSummary {
   let missing = 0;

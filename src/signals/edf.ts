@@ -120,11 +120,16 @@ function gapInSamples(gapSeconds: number, period: number, record: number, fileLa
   const gap = gapSeconds / period;
   if (Math.abs(gap) < GAP_TOLERANCE) return 0;
   if (gap < 0) {
-    throw new InputError(`${fileLabel}: EDF+D data record ${record + 1} starts ${-gapSeconds} s before record ${record} ends (records overlap or are out of order) — patternfold reads records in time order only; repair the file`);
+    throw new InputError(`${fileLabel}: EDF+D data record ${record + 1} starts ${seconds(-gapSeconds)} s before record ${record} ends (records overlap or are out of order) — patternfold reads records in time order only; repair the file`);
   }
   const whole = Math.round(gap);
   if (Math.abs(gap - whole) > GAP_TOLERANCE) {
-    throw new InputError(`${fileLabel}: EDF+D gap of ${gapSeconds} s before data record ${record + 1} is ${gap.toFixed(3)} sample periods, not a whole number, so it cannot be filled with missing samples — split the recording at the gap`);
+    throw new InputError(`${fileLabel}: EDF+D gap of ${seconds(gapSeconds)} s before data record ${record + 1} is ${gap.toFixed(3)} sample periods, not a whole number, so it cannot be filled with missing samples — split the recording at the gap`);
   }
   return whole;
+}
+
+/** Seconds for a message, without binary-fraction noise (0.1, not 0.10000000000000009). */
+function seconds(x: number): string {
+  return String(Number(x.toPrecision(9)));
 }
