@@ -42,7 +42,7 @@ export interface HedgesGMissing {
  * or the pooled SD is 0. Throws RangeError for a level outside (0, 1). O(1).
  *
  * @example hedgesG({ n: 50, mean: 100, sd: 4.5 }, { n: 50, mean: 103, sd: 5.5 })
- * // d 0.597022, correction 0.992327, g 0.592442, variance 0.041143, low 0.194894, high 0.989990
+ * // d 0.597022, correction 0.992327, g 0.592442, variance 0.041143, low 0.194885, high 0.989998
  */
 export function hedgesG(group0: GroupMoments, group1: GroupMoments, level = 0.95): HedgesG | HedgesGMissing {
   if (!(level > 0 && level < 1)) throw new RangeError(`hedgesG: level must lie in (0, 1), got ${level}`);
