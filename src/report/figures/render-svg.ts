@@ -25,6 +25,27 @@ const FIGURE_CONFIG = {
 } as const;
 
 /**
+ * Renames the ids vega gives gradients and clip paths (a process-wide counter, e.g.
+ * `gradient_7`) to names scoped by the figure and numbered in order of appearance, so ids are
+ * unique within the page and a rerun gives the same bytes.
+ * @example scopeIds('<linearGradient id="gradient_7"/><path fill="url(#gradient_7)"/>', 'roc')
+ *          // '<linearGradient id="roc-gradient-0"/><path fill="url(#roc-gradient-0)"/>'
+ */
+export function scopeIds(svg: string, figure: string): string {
+  const renamed = new Map<string, string>();
+  const counts = new Map<string, number>();
+  const slug = figure.replace(/[^A-Za-z0-9-]/g, '-');
+  for (const m of svg.matchAll(/\sid="((gradient|clip|pattern)_\d+)"/g)) {
+    if (renamed.has(m[1])) continue;
+    const n = counts.get(m[2]) ?? 0;
+    counts.set(m[2], n + 1);
+    renamed.set(m[1], `${slug}-${m[2]}-${n}`);
+  }
+  if (renamed.size === 0) return svg;
+  return svg.replace(/((?:gradient|clip|pattern)_\d+)\b/g, (id) => renamed.get(id) ?? id);
+}
+
+/**
  * Renders a vega-lite specification to a vetted inline SVG. The vega loader is disabled, so a
  * specification that asks for a URL fails instead of loading it. Throws when vega fails or the
  * SVG holds something a static figure never needs (see trustedSvg).
@@ -42,7 +63,7 @@ export async function renderSvg(spec: TopLevelSpec, figure: string): Promise<Mar
   const view = new vega.View(vega.parse(compiled), { renderer: 'none', loader, logLevel: vega.Warn });
   try {
     const svg = await view.toSVG();
-    return trustedSvg(svg, figure);
+    return trustedSvg(scopeIds(svg, figure), figure);
   } finally {
     view.finalize();
   }
