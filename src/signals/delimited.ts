@@ -1,5 +1,5 @@
 import { InputError } from '../shared/errors.ts';
-import { detectDelimiter, splitFields, type Delimiter } from './delimiter.ts';
+import { detectDelimiter, fieldAt, splitFields, type Delimiter } from './delimiter.ts';
 import { quoteFound } from './quote-found.ts';
 import { readSampleCell } from './sample-cell.ts';
 import { selectSeries } from './selection.ts';
@@ -65,18 +65,22 @@ export function parseDelimited(text: string, selection: SignalSelection, fileLab
   return selectSeries({ samples, format: 'text', channel: column.name, sampleRate: null }, selection, fileLabel);
 }
 
-function isComment(line: string): boolean {
-  return line.trimStart().startsWith('#');
-}
+type LineKind = 'blank' | 'comment' | 'content';
 
-function isBlank(line: string): boolean {
-  return line.trim() === '';
+/** Classifies a line by its first non-blank character, without allocating. */
+function lineKind(line: string): LineKind {
+  for (let i = 0; i < line.length; i++) {
+    const c = line.charCodeAt(i);
+    if (c === 0x23) return 'comment';
+    if (c !== 0x20 && c !== 0x09 && c !== 0x0b && c !== 0x0c && c !== 0xa0 && c !== 0xfeff) return 'content';
+  }
+  return 'blank';
 }
 
 /** 0-based indices of the lines that are neither comments nor blank. */
 function contentLineIndices(lines: readonly string[]): number[] {
   const out: number[] = [];
-  for (let i = 0; i < lines.length; i++) if (!isComment(lines[i]) && !isBlank(lines[i])) out.push(i);
+  for (let i = 0; i < lines.length; i++) if (lineKind(lines[i]) === 'content') out.push(i);
   return out;
 }
 
@@ -156,17 +160,18 @@ function readColumn(
   const columnText = `column ${column.index + 1}${column.name === `column ${column.index + 1}` ? '' : ` (${quoteFound(column.name)})`}`;
   for (let i = first; i <= last; i++) {
     const line = lines[i];
-    if (isComment(line)) continue;
-    if (isBlank(line)) {
+    const kind = lineKind(line);
+    if (kind === 'comment') continue;
+    if (kind === 'blank') {
       samples[n++] = NaN;
       continue;
     }
-    const fields = splitFields(line, delimiter);
+    const cell = fieldAt(line, delimiter, column.index);
     const at = `${fileLabel}:${i + 1}`;
-    if (column.index >= fields.length) {
-      throw new InputError(`${at}: the row has ${fields.length} field${fields.length === 1 ? '' : 's'}, so ${columnText} is missing — complete the row (an empty field marks a missing sample)`);
+    if (cell === undefined) {
+      const width = splitFields(line, delimiter).length;
+      throw new InputError(`${at}: the row has ${width} field${width === 1 ? '' : 's'}, so ${columnText} is missing — complete the row (an empty field marks a missing sample)`);
     }
-    const cell = fields[column.index];
     const reading = readSampleCell(cell, allowDecimalComma);
     if (reading.kind === 'text') {
       throw new InputError(`${at}: ${columnText} holds ${quoteFound(cell)}, which is not a number — correct it, or write an empty cell, NaN, NA or null to mark a missing sample`);
