@@ -1,0 +1,262 @@
+import { assertDelay, assertOrder } from './check-arguments.ts';
+import { factorial } from './factorial.ts';
+import { orderedBellNumber } from './ordered-bell.ts';
+import { successorPatternCode } from './pattern-code.ts';
+import { symbolCodeSpace } from './symbol-code.ts';
+
+/** Transitions between the patterns of consecutive valid windows: one entry per distinct edge. */
+export interface TransitionEdges {
+  /** Code of the earlier window's pattern; edges are sorted by source. */
+  source: Int32Array;
+  /** Code of the later window's pattern. */
+  target: Int32Array;
+  /** Number of times the edge occurs. */
+  count: Float64Array;
+}
+
+/** Everything one pass learns about one order at one delay. */
+export interface OrdinalScan {
+  order: number;
+  delay: number;
+  ties: 'appearance' | 'symbols';
+  /** Number of possible patterns: m! (appearance) or the ordered Bell number (symbols). */
+  alphabetSize: number;
+  /** Codes of the patterns seen at least once, ascending. */
+  patterns: Int32Array;
+  /** Valid windows per seen pattern (aligned with `patterns`). */
+  counts: Float64Array;
+  /** Sum of the population variances of those windows (aligned with `patterns`). */
+  weights: Float64Array;
+  /** Windows without NaN (N). */
+  validWindows: number;
+  /** Valid windows holding at least two equal values. */
+  tiedWindows: number;
+  transitions: TransitionEdges;
+}
+
+/** Code ranges up to this size are counted in dense typed arrays, larger ones in a Map. */
+const DENSE_CODE_LIMIT = 2 ** 23;
+/** Transition matrices up to this many cells are dense; beyond, edges are collected and sorted. */
+const DENSE_EDGE_LIMIT = 2 ** 20;
+
+const enum EdgeMode {
+  /** delay 1, appearance: the next code follows from (code, rank of the newest sample). */
+  ByRank,
+  /** a dense source x target matrix. */
+  Dense,
+  /** keys source·space + target appended, sorted at the end. */
+  Collected,
+}
+
+/**
+ * One pass over y at one delay that feeds every requested order at once: pattern counts,
+ * variance-weighted counts (Fadlallah et al. 2013, Phys. Rev. E 87, 022911), tied windows and
+ * the transitions of the ordinal network (Small 2013, Proc. IEEE ISCAS, 2509; McCullough et
+ * al. 2015, Chaos 25, 053101) between windows t and t+1 when both are valid.
+ *
+ * Ties follow `ties`: 'appearance' (the earlier sample ranks lower, codes of
+ * ordinalPatternCode) or 'symbols' (weak orderings, codes of ordinalSymbolCode). A window
+ * holding a NaN is skipped. The codes of all orders are derived incrementally along each
+ * chain t mod tau; the window variances of all orders come from one Welford pass (Welford
+ * 1962, Technometrics 4, 419) over the newest m_max samples. O(n · (m_max + orders)) time;
+ * memory O(sum of m! + transition tables), plus 8 bytes per window for orders whose
+ * transition matrix is too large to hold densely (delay >= 2 with m >= 7, or symbols with
+ * m >= 5), whose edges are then sorted (O(N log N)).
+ *
+ * Orders are deduplicated and returned ascending. A series too short for an order gives
+ * validWindows 0 and empty lists. Throws a RangeError for an order outside 2..9, no order,
+ * or a delay below 1.
+ *
+ * @example scanOrdinalPatterns(Float64Array.of(4, 7, 9, 10, 6, 11, 3), 1, [2])[0].counts // [2, 4]
+ */
+export function scanOrdinalPatterns(
+  y: Float64Array,
+  delay: number,
+  orders: readonly number[],
+  ties: 'appearance' | 'symbols' = 'appearance',
+): OrdinalScan[] {
+  assertDelay(delay, 'scanOrdinalPatterns');
+  if (orders.length === 0) throw new RangeError('scanOrdinalPatterns: at least one order is needed');
+  orders.forEach((m) => assertOrder(m, 'scanOrdinalPatterns'));
+  const list = [...new Set(orders)].sort((a, b) => a - b);
+  const symbols = ties === 'symbols';
+  const tau = delay;
+  const n = y.length;
+  const maxOrder = list[list.length - 1];
+  const groups = list.length;
+
+  const digitWeight = new Float64Array(maxOrder);
+  for (let k = 1; k < maxOrder; k++) digitWeight[k] = symbols ? symbolCodeSpace(k) : factorial(k);
+  const reciprocal = new Float64Array(maxOrder + 1);
+  for (let k = 1; k <= maxOrder; k++) reciprocal[k] = 1 / k;
+
+  const order = Int32Array.from(list);
+  const space = list.map((m) => (symbols ? symbolCodeSpace(m) : factorial(m)));
+  const denseCounts = list.map((_, g) => (space[g] <= DENSE_CODE_LIMIT ? new Float64Array(space[g]) : null));
+  const denseWeights = list.map((_, g) => (space[g] <= DENSE_CODE_LIMIT ? new Float64Array(space[g]) : null));
+  const mapCounts = list.map(() => new Map<number, number>());
+  const mapWeights = list.map(() => new Map<number, number>());
+  const windowsUpperBound = (m: number): number => Math.max(0, n - (m - 1) * tau);
+  const edgeMode = list.map((m, g): EdgeMode => {
+    if (!symbols && tau === 1) return EdgeMode.ByRank;
+    return space[g] * space[g] <= DENSE_EDGE_LIMIT ? EdgeMode.Dense : EdgeMode.Collected;
+  });
+  const edgeTable = list.map((m, g) => {
+    if (edgeMode[g] === EdgeMode.ByRank) return new Float64Array(space[g] * m);
+    if (edgeMode[g] === EdgeMode.Dense) return new Float64Array(space[g] * space[g]);
+    return new Float64Array(Math.max(0, windowsUpperBound(m) - 1));
+  });
+  const collected = new Int32Array(groups);
+  const validWindows = new Float64Array(groups);
+  const tiedWindows = new Float64Array(groups);
+  const previousValid = new Uint8Array(groups);
+  const previousCode = new Int32Array(groups);
+
+  // Per chain: codes of orders 1..maxOrder (slot k holds order k+1), latest NaN, latest start
+  // of a pair of equal samples.
+  const codes = new Float64Array(tau * maxOrder);
+  const lastMissing = new Float64Array(tau).fill(-1);
+  const tieFrom = new Float64Array(tau).fill(-1);
+  const digitAt = new Int32Array(maxOrder + 1);
+  const varianceAt = new Float64Array(maxOrder + 1);
+  const fullSpan = (maxOrder - 1) * tau;
+
+  let chain = 0;
+  for (let v = 0; v < n; v++) {
+    const xv = y[v];
+    const base = chain * maxOrder;
+    if (xv !== xv) lastMissing[chain] = v;
+    const kMax = v >= fullSpan ? maxOrder - 1 : Math.floor(v / tau);
+    let carry = 0;
+    let rank = 0;
+    let equalSeen = 0;
+    let nearestTie = 0;
+    let mean = xv;
+    let sumSquares = 0;
+    for (let k = 1, u = v - tau; k <= kMax; k++, u -= tau) {
+      const yu = y[u];
+      let digit: number;
+      if (symbols) {
+        if (yu < xv) rank++;
+        else if (yu === xv) equalSeen = 1;
+        digit = 2 * rank + equalSeen;
+      } else {
+        rank += +(yu <= xv);
+        digit = rank;
+      }
+      if (nearestTie === 0 && yu === xv) nearestTie = k;
+      const old = codes[base + k];
+      codes[base + k] = carry + digit * digitWeight[k];
+      carry = old;
+      digitAt[k + 1] = digit;
+      const deviation = yu - mean;
+      mean += deviation * reciprocal[k + 1];
+      sumSquares += deviation * (yu - mean);
+      varianceAt[k + 1] = sumSquares * reciprocal[k + 1];
+    }
+    if (nearestTie > 0 && v - nearestTie * tau > tieFrom[chain]) tieFrom[chain] = v - nearestTie * tau;
+
+    for (let g = 0; g < groups; g++) {
+      const m = order[g];
+      const start = v - (m - 1) * tau;
+      if (start < 0 || lastMissing[chain] >= start) {
+        previousValid[g] = 0;
+        continue;
+      }
+      const code = codes[base + m - 1];
+      const counts = denseCounts[g];
+      if (counts !== null) {
+        counts[code]++;
+        (denseWeights[g] as Float64Array)[code] += varianceAt[m];
+      } else {
+        mapCounts[g].set(code, (mapCounts[g].get(code) ?? 0) + 1);
+        mapWeights[g].set(code, (mapWeights[g].get(code) ?? 0) + varianceAt[m]);
+      }
+      validWindows[g]++;
+      if (tieFrom[chain] >= start) tiedWindows[g]++;
+      if (previousValid[g] === 1) {
+        const mode = edgeMode[g];
+        if (mode === EdgeMode.ByRank) edgeTable[g][previousCode[g] * m + digitAt[m]]++;
+        else if (mode === EdgeMode.Dense) edgeTable[g][previousCode[g] * space[g] + code]++;
+        else edgeTable[g][collected[g]++] = previousCode[g] * space[g] + code;
+      }
+      previousValid[g] = 1;
+      previousCode[g] = code;
+    }
+    if (++chain === tau) chain = 0;
+  }
+
+  return list.map((m, g) => {
+    const seen = denseCounts[g] !== null
+      ? seenFromDense(denseCounts[g] as Float64Array, denseWeights[g] as Float64Array)
+      : seenFromMaps(mapCounts[g], mapWeights[g]);
+    return {
+      order: m,
+      delay: tau,
+      ties,
+      alphabetSize: symbols ? orderedBellNumber(m) : factorial(m),
+      ...seen,
+      validWindows: validWindows[g],
+      tiedWindows: tiedWindows[g],
+      transitions: edgesFrom(edgeMode[g], edgeTable[g], collected[g], m, space[g]),
+    };
+  });
+}
+
+function seenFromDense(counts: Float64Array, weights: Float64Array): Pick<OrdinalScan, 'patterns' | 'counts' | 'weights'> {
+  let distinct = 0;
+  for (let code = 0; code < counts.length; code++) if (counts[code] > 0) distinct++;
+  const seen = { patterns: new Int32Array(distinct), counts: new Float64Array(distinct), weights: new Float64Array(distinct) };
+  for (let code = 0, i = 0; code < counts.length; code++) {
+    if (counts[code] === 0) continue;
+    seen.patterns[i] = code;
+    seen.counts[i] = counts[code];
+    seen.weights[i++] = weights[code];
+  }
+  return seen;
+}
+
+function seenFromMaps(counts: Map<number, number>, weights: Map<number, number>): Pick<OrdinalScan, 'patterns' | 'counts' | 'weights'> {
+  const patterns = Int32Array.from(counts.keys()).sort();
+  return {
+    patterns,
+    counts: Float64Array.from(patterns, (code) => counts.get(code) as number),
+    weights: Float64Array.from(patterns, (code) => weights.get(code) as number),
+  };
+}
+
+function edgesFrom(mode: EdgeMode, table: Float64Array, collected: number, order: number, space: number): TransitionEdges {
+  const source: number[] = [];
+  const target: number[] = [];
+  const count: number[] = [];
+  if (mode === EdgeMode.ByRank) {
+    for (let from = 0; from < space; from++) {
+      for (let rank = 0; rank < order; rank++) {
+        const c = table[from * order + rank];
+        if (c === 0) continue;
+        source.push(from);
+        target.push(successorPatternCode(from, order, rank));
+        count.push(c);
+      }
+    }
+  } else if (mode === EdgeMode.Dense) {
+    for (let cell = 0; cell < table.length; cell++) {
+      if (table[cell] === 0) continue;
+      source.push(Math.floor(cell / space));
+      target.push(cell % space);
+      count.push(table[cell]);
+    }
+  } else {
+    const keys = table.subarray(0, collected).sort();
+    for (let i = 0; i < keys.length; ) {
+      let j = i + 1;
+      while (j < keys.length && keys[j] === keys[i]) j++;
+      const from = Math.floor(keys[i] / space);
+      source.push(from);
+      target.push(keys[i] - from * space);
+      count.push(j - i);
+      i = j;
+    }
+  }
+  return { source: Int32Array.from(source), target: Int32Array.from(target), count: Float64Array.from(count) };
+}
