@@ -21,7 +21,8 @@ const OS_REASONS: Record<string, string> = {
  * touches the file system; all parsing is in {@link parseRecording}.
  *
  * @throws InputError naming the path: missing or unreadable file with the operating
- *   system's reason ("no such file", "permission denied", ...), a directory given, and
+ *   system's reason ("no such file", "permission denied", ...), a directory or another
+ *   non-regular file (device, pipe) given, and
  *   every error of the parsers.
  * @example await readSeries('data/s01.csv', { column: 'ecg', start: 0, length: 5000 })
  */
@@ -31,9 +32,9 @@ export async function readSeries(path: string, selection: SignalSelection): Prom
 
 async function readBytes(path: string): Promise<Uint8Array> {
   try {
-    if ((await stat(path)).isDirectory()) {
-      throw new InputError(`${path}: is a directory — give one recording file`);
-    }
+    const info = await stat(path);
+    if (info.isDirectory()) throw new InputError(`${path}: is a directory — give one recording file`);
+    if (!info.isFile()) throw new InputError(`${path}: is not a regular file (a device, pipe or socket) — give one recording file`);
     return await readFile(path);
   } catch (error) {
     if (error instanceof InputError) throw error;

@@ -1,7 +1,9 @@
-import { readFileSync } from 'node:fs';
-import { mkdir, mkdtemp, rm, writeFile } from 'node:fs/promises';
+import { execFileSync } from 'node:child_process';
+import { existsSync, readFileSync } from 'node:fs';
+import { chmod, mkdir, mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { InputError } from '../../src/shared/errors.ts';
 import { parseRecording, readSeries, sniffFormat } from '../../src/signals/index.ts';
@@ -121,15 +123,27 @@ describe('readSeries: file system errors', () => {
     expect(await asyncErrorOf(() => readSeries(path, ALL))).toBe(`${path}: is a directory — give one recording file`);
   });
 
+  it('a device is not a recording', async () => {
+    expect(await asyncErrorOf(() => readSeries('/dev/null', ALL))).toBe('/dev/null: is not a regular file (a device, pipe or socket) — give one recording file');
+  });
+
   it('a path through a file', async () => {
     const path = join(dir, 'ok.txt', 'x');
     expect(await asyncErrorOf(() => readSeries(path, ALL))).toBe(`${path}: cannot read — a part of the path is not a directory; check the path and its permissions`);
   });
 
-  // root reads any file, so EACCES cannot be provoked when the tests run as root.
-  it.skipIf(process.getuid?.() === 0)('unreadable file: "permission denied"', async () => {
+  it.skipIf(process.getuid === undefined || process.getuid() === 0)('unreadable file: "permission denied" (as an ordinary user)', async () => {
     const path = join(dir, 'locked.txt');
     expect(await asyncErrorOf(() => readSeries(path, ALL))).toBe(`${path}: cannot read — permission denied; check the path and its permissions`);
+  });
+
+  // Root reads any file, so under root the same read runs in a child process as user nobody (util-linux setpriv).
+  it.skipIf(process.getuid?.() !== 0 || !existsSync('/usr/bin/setpriv'))('unreadable file: "permission denied" (root: child process as nobody)', async () => {
+    await chmod(dir, 0o755);
+    const path = join(dir, 'locked.txt');
+    const script = `import('${pathToFileURL(join(import.meta.dirname, '../../src/signals/index.ts')).href}').then((m) => m.readSeries(${JSON.stringify(path)}, { column: 1, start: 0, length: null })).then(() => console.log('read'), (e) => console.log(e.message))`;
+    const out = execFileSync('/usr/bin/setpriv', ['--reuid=65534', '--regid=65534', '--clear-groups', process.execPath, '--import', 'tsx', '-e', script], { cwd: join(import.meta.dirname, '../..'), encoding: 'utf8' });
+    expect(out.trim()).toBe(`${path}: cannot read — permission denied; check the path and its permissions`);
   });
 });
 
