@@ -22,14 +22,15 @@ export function formatNumber(v: number | null | undefined, digits = 3): string {
 }
 
 /**
- * A p- or q-value: three significant digits, "< 0.0001" below 1e-4; "—" when missing.
- * @example formatP(0.0123) // '0.0123'
+ * A p- or q-value: two decimals from 0.1 up, two significant digits below (trailing zeros
+ * dropped), "< 0.0001" below 1e-4; "—" when missing.
+ * @example formatP(0.0123) // '0.012' ; formatP(0.004) // '0.004' ; formatP(0.31) // '0.31'
  */
 export function formatP(p: number | null | undefined): string {
   if (!isPresent(p)) return MISSING;
   if (p < 1e-4) return '< 0.0001';
   if (p >= 0.1) return p.toFixed(2);
-  return p.toPrecision(2);
+  return String(Number(p.toPrecision(2)));
 }
 
 /**

@@ -31,6 +31,8 @@ describe('number formatting', () => {
     expect(formatP(0.0123)).toBe('0.012');
     expect(formatP(0.31)).toBe('0.31');
     expect(formatP(0.00001)).toBe('< 0.0001');
+    expect(formatP(0.004)).toBe('0.004');
+    expect(formatP(0.001)).toBe('0.001');
   });
   it('prints durations in plain units', () => {
     expect(formatDuration(83_500)).toBe('1 min 23.5 s');

@@ -73,7 +73,7 @@ describe('renderReport: one self-contained page', () => {
     }
     const answerText = page.slice(answer, cohort);
     expect(answerText).toContain('0.78');
-    expect(answerText).toContain('p = 0.0040');
+    expect(answerText).toContain('p = 0.004');
     expect(answerText).toContain('999');
     expect(answerText).toContain('95% interval 0.65 to 0.89');
   });

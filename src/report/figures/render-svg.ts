@@ -19,7 +19,7 @@ const FIGURE_CONFIG = {
   background: 'white',
   view: { stroke: '#c8c8c8' },
   axis: { labelFontSize: 11, titleFontSize: 12, titleFontWeight: 'normal', gridColor: '#e6e6e6' },
-  legend: { labelFontSize: 11, titleFontSize: 12, titleFontWeight: 'normal', labelLimit: 220 },
+  legend: { labelFontSize: 11, titleFontSize: 12, titleFontWeight: 'normal', labelLimit: 320 },
   header: { labelFontSize: 12, titleFontSize: 12 },
   title: { fontSize: 13, fontWeight: 'normal', anchor: 'start' },
 } as const;
