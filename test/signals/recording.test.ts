@@ -65,6 +65,12 @@ describe('parseRecording: format recognition', () => {
     expect(errorOf(() => parseRecording(Uint8Array.of(0xff, ...utf8('BIOSEMI'), 0x20), ALL, 'r.bdf'))).toMatch(/^r\.bdf: a BDF file \(24-bit BioSemi format\)/);
   });
 
+  it('a UTF-8 byte-order mark (ef bb bf) before a header is not part of the first name', () => {
+    const s = parseRecording(Uint8Array.of(0xef, 0xbb, 0xbf, ...utf8('time;ecg\r\n0;1,5\r\n')), { column: 'time', start: 0, length: null }, 'bom.csv');
+    expect(s.channel).toBe('time');
+    expect(Array.from(parseRecording(Uint8Array.of(0xef, 0xbb, 0xbf, ...utf8('time;ecg\r\n0;1,5\r\n')), { column: 'ecg', start: 0, length: null }, 'bom.csv').values)).toEqual([1.5]);
+  });
+
   it('empty file', () => {
     expect(errorOf(() => parseRecording(new Uint8Array(0), ALL, 'e.csv'))).toBe('e.csv: no samples — the file is empty; give a table of numbers or an EDF file');
   });
