@@ -105,13 +105,13 @@ describe.skipIf(!haveChromium && !inCi)('report in headless Chromium', () => {
     expect(v.dialogs).toEqual([]);
     expect(v.consoleErrors).toEqual([]);
     expect(v.requests).toEqual([v.url]);
-    expect(await v.page.evaluate(() => document.scripts.length)).toBe(0);
-    expect(await v.page.evaluate(() => document.querySelectorAll('img, iframe, object, embed').length)).toBe(0);
+    expect(await v.page.locator('script').count()).toBe(0);
+    expect(await v.page.locator('img, iframe, object, embed').count()).toBe(0);
     const title = await v.page.textContent('h1');
     expect(title).toContain(HOSTILE_SCRIPT);
     const legendText = await v.page.$$eval('figure[data-figure="pca"] svg text', (ts) => ts.map((t) => t.textContent ?? ''));
     expect(legendText).toContain(HOSTILE_SCRIPT);
-    const bodyText = await v.page.evaluate(() => document.body.innerText);
+    const bodyText = await v.page.locator('body').innerText();
     expect(bodyText).not.toContain('\u202E');
     await v.page.close();
   });
