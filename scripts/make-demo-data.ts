@@ -26,7 +26,7 @@ import { parseArgs } from 'node:util';
 import { createRng, deriveSeed, type Rng } from '../src/shared/random.ts';
 
 const SUBJECTS_PER_GROUP = 20;
-const STRIDES = 600;
+const STRIDES = 1300;
 
 function arProcess(rng: Rng, n: number, phi: number, sd: number): Float64Array {
   const out = new Float64Array(n);

@@ -23,7 +23,9 @@ export function findCommand(name: string): CommandSpec {
 
 /** Parses the arguments that follow the command name. */
 export function parseCommand(spec: CommandSpec, args: string[]): ParsedCommand {
-  const options = Object.fromEntries(spec.options.map((o) => [o.name, { type: o.type, short: o.short, multiple: o.multiple }]));
+  const options = Object.fromEntries(
+    spec.options.map((o) => [o.name, { type: o.type, multiple: Boolean(o.multiple), ...(o.short ? { short: o.short } : {}) }]),
+  );
   let parsed;
   try {
     parsed = parseArgs({ args, options, allowPositionals: true, strict: true });

@@ -86,17 +86,25 @@ export function qualityRows(info: RecordingInfo, cells: CellFeatures[]): Quality
   }));
 }
 
-/** Human-readable summary of flagged cells: which recordings and cells, and cells flagged for everyone. */
+/**
+ * Human-readable summary of flagged cells: cells flagged for the same recordings share one
+ * line, and a cell flagged for every recording says so.
+ */
 export function flaggedCellNotes(quality: QualityRow[], recordings: number): string[] {
   const byCell = new Map<string, string[]>();
   for (const q of quality) {
     if (!q.flagged) continue;
-    const key = `order ${q.order}, delay ${q.delay}, scale ${q.scale}`;
+    const key = `(order ${q.order}, delay ${q.delay}, scale ${q.scale})`;
     byCell.set(key, [...(byCell.get(key) ?? []), q.recording]);
   }
-  return [...byCell.entries()].map(([cell, ids]) =>
-    ids.length === recordings
-      ? `cell ${cell}: every recording has too few windows per pattern — its features are unreliable for all subjects`
-      : `cell ${cell}: too few windows per pattern for ${ids.length} recording(s): ${ids.slice(0, 8).join(', ')}${ids.length > 8 ? ', …' : ''}`,
+  const byRecordings = new Map<string, string[]>();
+  for (const [cell, ids] of byCell) {
+    const who = ids.length === recordings ? 'every recording' : `${ids.length} recording(s): ${ids.slice(0, 8).join(', ')}${ids.length > 8 ? ', …' : ''}`;
+    byRecordings.set(who, [...(byRecordings.get(who) ?? []), cell]);
+  }
+  return [...byRecordings.entries()].map(
+    ([who, cells]) =>
+      `${cells.length} cell(s) ${cells.join(', ')} have too few windows per possible pattern for ${who}` +
+      (who === 'every recording' ? ' — their features are unreliable for all subjects' : ' — read those values with caution'),
   );
 }

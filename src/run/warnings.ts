@@ -33,18 +33,9 @@ export function studyWarnings(study: Study, infos: RecordingInfo[]): string[] {
       );
     }
   }
-  const largestOrder = Math.max(...study.grid.order);
-  const need = study.features.minWindowsPerPattern * factorial(largestOrder);
+  warnings.push(...shortRecordingWarnings(study, infos));
   for (const info of infos) {
     const id = info.recording.id;
-    const n = info.summary.length;
-    const short = study.grid.scale.flatMap((s) => study.grid.delay.map((d) => ({ s, d, w: windowsAvailable(n, largestOrder, d, s) }))).filter((c) => c.w < need);
-    if (short.length > 0) {
-      const worst = short.reduce((a, b) => (b.w < a.w ? b : a));
-      warnings.push(
-        `recording '${id}' is too short for order ${largestOrder} at ${short.length} (delay, scale) pair(s): ${n} samples give ${worst.w} windows at delay ${worst.d}, scale ${worst.s}, fewer than ${need} (${study.features.minWindowsPerPattern} x ${largestOrder}!) — those cells are flagged`,
-      );
-    }
     if (info.summary.missing > 0) {
       warnings.push(
         `recording '${id}' has ${info.summary.missing} missing sample(s) (longest gap ${info.summary.longestGap}): windows and transitions across gaps are skipped`,
@@ -59,4 +50,26 @@ export function studyWarnings(study: Study, infos: RecordingInfo[]): string[] {
     }
   }
   return warnings;
+}
+
+/**
+ * Recordings too short for the largest order at some (delay, scale) pairs, one warning per
+ * distinct shortfall so that a cohort of equal-length recordings gets one line, not one each.
+ */
+function shortRecordingWarnings(study: Study, infos: RecordingInfo[]): string[] {
+  const order = Math.max(...study.grid.order);
+  const need = study.features.minWindowsPerPattern * factorial(order);
+  const byShortfall = new Map<string, string[]>();
+  for (const info of infos) {
+    const n = info.summary.length;
+    const short = study.grid.scale.flatMap((s) => study.grid.delay.map((d) => ({ s, d, w: windowsAvailable(n, order, d, s) }))).filter((c) => c.w < need);
+    if (short.length === 0) continue;
+    const worst = short.reduce((a, b) => (b.w < a.w ? b : a));
+    const key = `${n} samples give ${worst.w} windows at delay ${worst.d}, scale ${worst.s}; ${short.length} (delay, scale) pair(s) below the minimum`;
+    byShortfall.set(key, [...(byShortfall.get(key) ?? []), info.recording.id]);
+  }
+  return [...byShortfall.entries()].map(([key, ids]) => {
+    const who = ids.length === 1 ? `recording '${ids[0]}' is` : `${ids.length} recordings (${ids.slice(0, 5).join(', ')}${ids.length > 5 ? ', …' : ''}) are`;
+    return `${who} too short for order ${order}: ${key}, fewer than ${need} (${study.features.minWindowsPerPattern} x ${order}!) — those cells are flagged; use longer recordings or a smaller order`;
+  });
 }

@@ -121,3 +121,12 @@ describe('loadStudy', () => {
     );
   });
 });
+
+describe('schema/study.schema.json', () => {
+  it('is the schema the loader validates against (regenerate with npm run schema)', async () => {
+    const { readFileSync } = await import('node:fs');
+    const { STUDY_SCHEMA } = await import('../../src/study/index.ts');
+    const committed = JSON.parse(readFileSync(join(import.meta.dirname, '..', '..', 'schema', 'study.schema.json'), 'utf8'));
+    expect(committed).toEqual(JSON.parse(JSON.stringify(STUDY_SCHEMA)));
+  });
+});
