@@ -32,20 +32,19 @@ export function jensenShannonToUniform(counts: ArrayLike<number>, alphabetSize: 
   let total = 0;
   for (let i = 0; i < counts.length; i++) total += counts[i];
   if (!(total > 0)) return NaN;
+  // J = (KL(P || mix) + KL(U || mix)) / 2 with mix = (P + U)/2: the same quantity as
+  // S(mix) - S(P)/2 - S(U)/2, but every term vanishes exactly where p = 1/M, so the uniform
+  // distribution gives 0 without cancellation.
   const u = 1 / M;
-  let entropyP = 0;
-  let entropyMix = 0;
-  let seen = 0;
+  let divergence = 0;
   for (let i = 0; i < counts.length; i++) {
     const p = counts[i] / total;
-    if (p > 0) entropyP -= p * Math.log(p);
     const mix = (p + u) / 2;
-    entropyMix -= mix * Math.log(mix);
-    seen++;
+    if (p > 0) divergence += p * Math.log(p / mix);
+    divergence += u * Math.log(u / mix);
   }
-  const unseen = M - seen;
-  if (unseen > 0) entropyMix -= unseen * (u / 2) * Math.log(u / 2);
-  return entropyMix - entropyP / 2 - Math.log(M) / 2;
+  divergence += (M - counts.length) * u * Math.LN2;
+  return Math.max(0, divergence / 2);
 }
 
 /**
