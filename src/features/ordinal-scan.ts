@@ -1,7 +1,6 @@
 import { assertDelay, assertOrder } from './check-arguments.ts';
 import { factorial } from './factorial.ts';
 import { orderedBellNumber } from './ordered-bell.ts';
-import { successorPatternCode } from './pattern-code.ts';
 import { symbolCodeSpace } from './symbol-code.ts';
 
 /** Transitions between the patterns of consecutive valid windows: one entry per distinct edge. */
@@ -91,20 +90,36 @@ export function scanOrdinalPatterns(
   for (let k = 1; k <= maxOrder; k++) reciprocal[k] = 1 / k;
 
   const order = Int32Array.from(list);
-  const space = list.map((m) => (symbols ? symbolCodeSpace(m) : factorial(m)));
-  const denseCounts = list.map((_, g) => (space[g] <= DENSE_CODE_LIMIT ? new Float64Array(space[g]) : null));
-  const denseWeights = list.map((_, g) => (space[g] <= DENSE_CODE_LIMIT ? new Float64Array(space[g]) : null));
+  const space = Float64Array.from(list, (m) => (symbols ? symbolCodeSpace(m) : factorial(m)));
+  // Dense pattern counts and weights of all orders in one array each, order g at countOffset[g].
+  const dense = Uint8Array.from(list, (_, g) => (space[g] <= DENSE_CODE_LIMIT ? 1 : 0));
+  const countOffset = new Int32Array(groups);
+  let countCells = 0;
+  for (let g = 0; g < groups; g++) {
+    countOffset[g] = countCells;
+    if (dense[g] === 1) countCells += space[g];
+  }
+  const counts = new Float64Array(countCells);
+  const weights = new Float64Array(countCells);
   const mapCounts = list.map(() => new Map<number, number>());
   const mapWeights = list.map(() => new Map<number, number>());
-  const windowsUpperBound = (m: number): number => Math.max(0, n - (m - 1) * tau);
-  const edgeMode = list.map((m, g): EdgeMode => {
+  // Transition counts, same layout; orders in EdgeMode.Collected append keys instead.
+  const edgeMode = Int32Array.from(list, (m, g) => {
     if (!symbols && tau === 1) return EdgeMode.ByRank;
     return space[g] * space[g] <= DENSE_EDGE_LIMIT ? EdgeMode.Dense : EdgeMode.Collected;
   });
-  const edgeTable = list.map((m, g) => {
-    if (edgeMode[g] === EdgeMode.ByRank) return new Float64Array(space[g] * m);
-    if (edgeMode[g] === EdgeMode.Dense) return new Float64Array(space[g] * space[g]);
-    return new Float64Array(Math.max(0, windowsUpperBound(m) - 1));
+  const edgeOffset = new Int32Array(groups);
+  let edgeCells = 0;
+  for (let g = 0; g < groups; g++) {
+    edgeOffset[g] = edgeCells;
+    if (edgeMode[g] === EdgeMode.ByRank) edgeCells += space[g] * order[g];
+    else if (edgeMode[g] === EdgeMode.Dense) edgeCells += space[g] * space[g];
+  }
+  const edgeCounts = new Float64Array(edgeCells);
+  const collectedKeys = list.map((m, g) => {
+    if (edgeMode[g] !== EdgeMode.Collected) return new Uint32Array(0);
+    const length = Math.max(0, n - (m - 1) * tau - 1);
+    return space[g] * space[g] <= 2 ** 32 ? new Uint32Array(length) : new Float64Array(length);
   });
   const collected = new Int32Array(groups);
   const validWindows = new Float64Array(groups);
@@ -114,7 +129,7 @@ export function scanOrdinalPatterns(
 
   // Per chain: codes of orders 1..maxOrder (slot k holds order k+1), latest NaN, latest start
   // of a pair of equal samples.
-  const codes = new Float64Array(tau * maxOrder);
+  const codes = new Int32Array(tau * maxOrder);
   const lastMissing = new Float64Array(tau).fill(-1);
   const tieFrom = new Float64Array(tau).fill(-1);
   const digitAt = new Int32Array(maxOrder + 1);
@@ -164,10 +179,9 @@ export function scanOrdinalPatterns(
         continue;
       }
       const code = codes[base + m - 1];
-      const counts = denseCounts[g];
-      if (counts !== null) {
-        counts[code]++;
-        (denseWeights[g] as Float64Array)[code] += varianceAt[m];
+      if (dense[g] === 1) {
+        counts[countOffset[g] + code]++;
+        weights[countOffset[g] + code] += varianceAt[m];
       } else {
         mapCounts[g].set(code, (mapCounts[g].get(code) ?? 0) + 1);
         mapWeights[g].set(code, (mapWeights[g].get(code) ?? 0) + varianceAt[m]);
@@ -176,9 +190,9 @@ export function scanOrdinalPatterns(
       if (tieFrom[chain] >= start) tiedWindows[g]++;
       if (previousValid[g] === 1) {
         const mode = edgeMode[g];
-        if (mode === EdgeMode.ByRank) edgeTable[g][previousCode[g] * m + digitAt[m]]++;
-        else if (mode === EdgeMode.Dense) edgeTable[g][previousCode[g] * space[g] + code]++;
-        else edgeTable[g][collected[g]++] = previousCode[g] * space[g] + code;
+        if (mode === EdgeMode.ByRank) edgeCounts[edgeOffset[g] + previousCode[g] * m + digitAt[m]]++;
+        else if (mode === EdgeMode.Dense) edgeCounts[edgeOffset[g] + previousCode[g] * space[g] + code]++;
+        else collectedKeys[g][collected[g]++] = previousCode[g] * space[g] + code;
       }
       previousValid[g] = 1;
       previousCode[g] = code;
@@ -187,9 +201,13 @@ export function scanOrdinalPatterns(
   }
 
   return list.map((m, g) => {
-    const seen = denseCounts[g] !== null
-      ? seenFromDense(denseCounts[g] as Float64Array, denseWeights[g] as Float64Array)
+    const seen = dense[g] === 1
+      ? seenFromDense(counts.subarray(countOffset[g], countOffset[g] + space[g]), weights.subarray(countOffset[g], countOffset[g] + space[g]))
       : seenFromMaps(mapCounts[g], mapWeights[g]);
+    let transitions: TransitionEdges;
+    if (edgeMode[g] === EdgeMode.ByRank) transitions = edgesByRank(edgeCounts.subarray(edgeOffset[g], edgeOffset[g] + space[g] * m), m);
+    else if (edgeMode[g] === EdgeMode.Dense) transitions = edgesFromMatrix(edgeCounts.subarray(edgeOffset[g], edgeOffset[g] + space[g] * space[g]), space[g]);
+    else transitions = edgesFromKeys(collectedKeys[g].subarray(0, collected[g]), space[g]);
     return {
       order: m,
       delay: tau,
@@ -198,7 +216,7 @@ export function scanOrdinalPatterns(
       ...seen,
       validWindows: validWindows[g],
       tiedWindows: tiedWindows[g],
-      transitions: edgesFrom(edgeMode[g], edgeTable[g], collected[g], m, space[g]),
+      transitions,
     };
   });
 }
@@ -225,38 +243,84 @@ function seenFromMaps(counts: Map<number, number>, weights: Map<number, number>)
   };
 }
 
-function edgesFrom(mode: EdgeMode, table: Float64Array, collected: number, order: number, space: number): TransitionEdges {
-  const source: number[] = [];
-  const target: number[] = [];
-  const count: number[] = [];
-  if (mode === EdgeMode.ByRank) {
-    for (let from = 0; from < space; from++) {
-      for (let rank = 0; rank < order; rank++) {
-        const c = table[from * order + rank];
-        if (c === 0) continue;
-        source.push(from);
-        target.push(successorPatternCode(from, order, rank));
-        count.push(c);
-      }
-    }
-  } else if (mode === EdgeMode.Dense) {
-    for (let cell = 0; cell < table.length; cell++) {
-      if (table[cell] === 0) continue;
-      source.push(Math.floor(cell / space));
-      target.push(cell % space);
-      count.push(table[cell]);
-    }
-  } else {
-    const keys = table.subarray(0, collected).sort();
-    for (let i = 0; i < keys.length; ) {
-      let j = i + 1;
-      while (j < keys.length && keys[j] === keys[i]) j++;
-      const from = Math.floor(keys[i] / space);
-      source.push(from);
-      target.push(keys[i] - from * space);
-      count.push(j - i);
-      i = j;
-    }
+function allocateEdges(length: number): TransitionEdges {
+  return { source: new Int32Array(length), target: new Int32Array(length), count: new Float64Array(length) };
+}
+
+function nonZero(table: Float64Array): number {
+  let count = 0;
+  for (let i = 0; i < table.length; i++) if (table[i] !== 0) count++;
+  return count;
+}
+
+/** Edges from counts indexed by source·m + rank of the newest sample (delay 1, appearance). */
+function edgesByRank(table: Float64Array, order: number): TransitionEdges {
+  const edges = allocateEdges(nonZero(table));
+  const scratch = new Int32Array(2 * order);
+  for (let cell = 0, e = 0; cell < table.length; cell++) {
+    if (table[cell] === 0) continue;
+    const source = Math.floor(cell / order);
+    edges.source[e] = source;
+    edges.target[e] = successorCode(source, order, cell - source * order, scratch);
+    edges.count[e++] = table[cell];
   }
-  return { source: Int32Array.from(source), target: Int32Array.from(target), count: Float64Array.from(count) };
+  return edges;
+}
+
+/** Edges from a dense source x target matrix. */
+function edgesFromMatrix(table: Float64Array, space: number): TransitionEdges {
+  const edges = allocateEdges(nonZero(table));
+  for (let cell = 0, e = 0; cell < table.length; cell++) {
+    if (table[cell] === 0) continue;
+    edges.source[e] = Math.floor(cell / space);
+    edges.target[e] = cell % space;
+    edges.count[e++] = table[cell];
+  }
+  return edges;
+}
+
+/** Edges from collected keys source·space + target: sorted in place, then run-length counted. */
+function edgesFromKeys(keys: Uint32Array | Float64Array, space: number): TransitionEdges {
+  keys.sort();
+  let distinct = 0;
+  for (let i = 0; i < keys.length; i++) if (i === 0 || keys[i] !== keys[i - 1]) distinct++;
+  const edges = allocateEdges(distinct);
+  for (let i = 0, e = 0; i < keys.length; e++) {
+    let j = i + 1;
+    while (j < keys.length && keys[j] === keys[i]) j++;
+    const source = Math.floor(keys[i] / space);
+    edges.source[e] = source;
+    edges.target[e] = keys[i] - source * space;
+    edges.count[e] = j - i;
+    i = j;
+  }
+  return edges;
+}
+
+/**
+ * Code of the window after `code` (delay 1) whose newest sample ranks above `rank` of the
+ * m-1 kept samples; the allocation-free twin of successorPatternCode. O(m^2).
+ */
+function successorCode(code: number, order: number, rank: number, scratch: Int32Array): number {
+  // position[i] = rank of sample i within the window, built by insertion as in ordinalPatternFromCode
+  const position = scratch;
+  for (let k = 0; k < order; k++) {
+    const below = Math.floor(code / factorial(k)) % (k + 1);
+    for (let i = 0; i < k; i++) if (position[i] >= below) position[i]++;
+    position[k] = below;
+  }
+  // drop sample 0, append the new sample at `rank`
+  const next = scratch.subarray(order);
+  for (let i = 1; i < order; i++) {
+    const kept = position[i] > position[0] ? position[i] - 1 : position[i];
+    next[i - 1] = kept >= rank ? kept + 1 : kept;
+  }
+  next[order - 1] = rank;
+  let result = 0;
+  for (let k = 1; k < order; k++) {
+    let below = 0;
+    for (let j = 0; j < k; j++) if (next[j] < next[k]) below++;
+    result += below * factorial(k);
+  }
+  return result;
 }
