@@ -56,8 +56,10 @@ const enum EdgeMode {
  * Ties follow `ties`: 'appearance' (the earlier sample ranks lower, codes of
  * ordinalPatternCode) or 'symbols' (weak orderings, codes of ordinalSymbolCode). A window
  * holding a NaN is skipped. The codes of all orders are derived incrementally along each
- * chain t mod tau; the window variances of all orders come from one Welford pass (Welford
- * 1962, Technometrics 4, 419) over the newest m_max samples. O(n · (m_max + orders)) time;
+ * chain t mod tau; the window variances of all orders come from one pass over the newest m_max
+ * samples with sums shifted by the newest sample (the shifted-data algorithm of Chan, Golub &
+ * LeVeque 1983, Am. Stat. 37, 242: the shift lies inside the window, which bounds the
+ * cancellation; a constant window gives exactly 0). O(n · (m_max + orders)) time;
  * memory O(sum of m! + transition tables), plus 8 bytes per window for orders whose
  * transition matrix is too large to hold densely (delay >= 2 with m >= 7, or symbols with
  * m >= 5), whose edges are then sorted (O(N log N)).
@@ -124,6 +126,62 @@ export function scanOrdinalPatterns(
   const collected = new Int32Array(groups);
   const validWindows = new Float64Array(groups);
   const tiedWindows = new Float64Array(groups);
+  accumulate(y, {
+    tau, maxOrder, symbols, digitWeight, reciprocal, order, space, dense, countOffset, counts, weights,
+    mapCounts, mapWeights, edgeMode, edgeOffset, edgeCounts, collectedKeys, collected, validWindows, tiedWindows,
+  });
+
+  return list.map((m, g) => {
+    const seen = dense[g] === 1
+      ? seenFromDense(counts.subarray(countOffset[g], countOffset[g] + space[g]), weights.subarray(countOffset[g], countOffset[g] + space[g]))
+      : seenFromMaps(mapCounts[g], mapWeights[g]);
+    let transitions: TransitionEdges;
+    if (edgeMode[g] === EdgeMode.ByRank) transitions = edgesByRank(edgeCounts.subarray(edgeOffset[g], edgeOffset[g] + space[g] * m), m);
+    else if (edgeMode[g] === EdgeMode.Dense) transitions = edgesFromMatrix(edgeCounts.subarray(edgeOffset[g], edgeOffset[g] + space[g] * space[g]), space[g]);
+    else transitions = edgesFromKeys(collectedKeys[g].subarray(0, collected[g]), space[g]);
+    return {
+      order: m,
+      delay: tau,
+      ties,
+      alphabetSize: symbols ? orderedBellNumber(m) : factorial(m),
+      ...seen,
+      validWindows: validWindows[g],
+      tiedWindows: tiedWindows[g],
+      transitions,
+    };
+  });
+}
+
+/** Buffers and settings shared by the scan's set-up and its hot loop. */
+interface ScanBuffers {
+  tau: number;
+  maxOrder: number;
+  symbols: boolean;
+  digitWeight: Float64Array;
+  reciprocal: Float64Array;
+  order: Int32Array;
+  space: Float64Array;
+  dense: Uint8Array;
+  countOffset: Int32Array;
+  counts: Float64Array;
+  weights: Float64Array;
+  mapCounts: Map<number, number>[];
+  mapWeights: Map<number, number>[];
+  edgeMode: Int32Array;
+  edgeOffset: Int32Array;
+  edgeCounts: Float64Array;
+  collectedKeys: (Uint32Array | Float64Array)[];
+  collected: Int32Array;
+  validWindows: Float64Array;
+  tiedWindows: Float64Array;
+}
+
+/** The hot loop of scanOrdinalPatterns: one step per sample, all orders. */
+function accumulate(y: Float64Array, buffers: ScanBuffers): void {
+  const { tau, maxOrder, symbols, digitWeight, reciprocal, order, space, dense, countOffset, counts, weights } = buffers;
+  const { mapCounts, mapWeights, edgeMode, edgeOffset, edgeCounts, collectedKeys, collected, validWindows, tiedWindows } = buffers;
+  const n = y.length;
+  const groups = order.length;
   const previousValid = new Uint8Array(groups);
   const previousCode = new Int32Array(groups);
 
@@ -146,8 +204,8 @@ export function scanOrdinalPatterns(
     let rank = 0;
     let equalSeen = 0;
     let nearestTie = 0;
-    let mean = xv;
-    let sumSquares = 0;
+    let shiftedSum = 0;
+    let shiftedSquares = 0;
     for (let k = 1, u = v - tau; k <= kMax; k++, u -= tau) {
       const yu = y[u];
       let digit: number;
@@ -164,10 +222,11 @@ export function scanOrdinalPatterns(
       codes[base + k] = carry + digit * digitWeight[k];
       carry = old;
       digitAt[k + 1] = digit;
-      const deviation = yu - mean;
-      mean += deviation * reciprocal[k + 1];
-      sumSquares += deviation * (yu - mean);
-      varianceAt[k + 1] = sumSquares * reciprocal[k + 1];
+      const deviation = yu - xv;
+      shiftedSum += deviation;
+      shiftedSquares += deviation * deviation;
+      const variance = (shiftedSquares - shiftedSum * shiftedSum * reciprocal[k + 1]) * reciprocal[k + 1];
+      varianceAt[k + 1] = variance > 0 ? variance : 0;
     }
     if (nearestTie > 0 && v - nearestTie * tau > tieFrom[chain]) tieFrom[chain] = v - nearestTie * tau;
 
@@ -200,25 +259,6 @@ export function scanOrdinalPatterns(
     if (++chain === tau) chain = 0;
   }
 
-  return list.map((m, g) => {
-    const seen = dense[g] === 1
-      ? seenFromDense(counts.subarray(countOffset[g], countOffset[g] + space[g]), weights.subarray(countOffset[g], countOffset[g] + space[g]))
-      : seenFromMaps(mapCounts[g], mapWeights[g]);
-    let transitions: TransitionEdges;
-    if (edgeMode[g] === EdgeMode.ByRank) transitions = edgesByRank(edgeCounts.subarray(edgeOffset[g], edgeOffset[g] + space[g] * m), m);
-    else if (edgeMode[g] === EdgeMode.Dense) transitions = edgesFromMatrix(edgeCounts.subarray(edgeOffset[g], edgeOffset[g] + space[g] * space[g]), space[g]);
-    else transitions = edgesFromKeys(collectedKeys[g].subarray(0, collected[g]), space[g]);
-    return {
-      order: m,
-      delay: tau,
-      ties,
-      alphabetSize: symbols ? orderedBellNumber(m) : factorial(m),
-      ...seen,
-      validWindows: validWindows[g],
-      tiedWindows: tiedWindows[g],
-      transitions,
-    };
-  });
 }
 
 function seenFromDense(counts: Float64Array, weights: Float64Array): Pick<OrdinalScan, 'patterns' | 'counts' | 'weights'> {
