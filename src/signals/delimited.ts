@@ -174,6 +174,11 @@ function readColumn(
     }
     const reading = readSampleCell(cell, allowDecimalComma);
     if (reading.kind === 'text') {
+      if (!allowDecimalComma && readSampleCell(cell, true).kind === 'number') {
+        throw new InputError(
+          `${at}: ${columnText} holds ${quoteFound(cell)}, a number written with a decimal comma, but the file's ${describeDelimiter(delimiter).replace(/^fields split/, 'fields are split').replace(/^read as /, 'lines are read as ')} and there a comma is never a decimal mark — save the table with semicolons (or tabs) between fields, or with decimal points`,
+        );
+      }
       throw new InputError(`${at}: ${columnText} holds ${quoteFound(cell)}, which is not a number — correct it, or write an empty cell, NaN, NA or null to mark a missing sample`);
     }
     if (reading.kind === 'infinite') {

@@ -35,4 +35,10 @@ export interface Series {
   sampleRate: number | null;
   /** Smallest positive difference between distinct values; null when fewer than 2 distinct values. */
   resolution: number | null;
+  /**
+   * The file as read by `readSeries`: its size and the SHA-256 (FIPS 180-4, lowercase hex) of
+   * exactly the bytes parsed, so a fingerprint never describes other bytes than the samples.
+   * Absent when the series was parsed from bytes in memory.
+   */
+  source?: { bytes: number; sha256: string };
 }
