@@ -9,6 +9,7 @@ import { readFileSync, statSync } from 'node:fs';
 import { basename, isAbsolute, relative, resolve } from 'node:path';
 import { globSync } from 'tinyglobby';
 import { InputError, locate } from '../shared/errors.ts';
+import { brokenLink, brokenLinksBeside, describeBrokenLink } from './broken-links.ts';
 import { showValue, studyPosition } from './validate.ts';
 import type { Recording } from './types.ts';
 
@@ -36,9 +37,19 @@ function expandGlobs(ctx: Context, group: string, globs: string[]): string[] {
   globs.forEach((pattern, i) => {
     const keyPath = globs.length > 1 ? ['groups', group, i] : ['groups', group];
     const matches = globSync(pattern, { cwd: ctx.dir, absolute: true, onlyFiles: true, dot: false, expandDirectories: false });
-    if (matches.length === 0) {
+    const [broken] = brokenLinksBeside(pattern, ctx.dir, matches);
+    if (broken) {
       throw new InputError(
-        `${where(ctx, keyPath)}: groups.${group} pattern ${showValue(pattern)} matches no file in ${ctx.dir} — check the path (it is relative to the study file) and the extension`,
+        `${where(ctx, keyPath)}: groups.${group} pattern ${showValue(pattern)} would match ${relPath(ctx, broken.path)}, ${describeBrokenLink(broken)} — fix or remove the link (links are followed to the file they point at)`,
+      );
+    }
+    if (matches.length === 0) {
+      const folders = globSync(pattern, { cwd: ctx.dir, onlyDirectories: true, dot: false, expandDirectories: false });
+      const what = folders.length > 0
+        ? `matches only folder(s) (${folders.slice(0, 3).join(', ')}), no file`
+        : `matches no file in ${ctx.dir}`;
+      throw new InputError(
+        `${where(ctx, keyPath)}: groups.${group} pattern ${showValue(pattern)} ${what} — check the path (it is relative to the study file) and the extension`,
       );
     }
     for (const m of matches) files.add(resolve(m));
@@ -61,7 +72,7 @@ export function recordingsFromGlobs(ctx: Context, groups: Record<string, string 
       const before = seen.get(id);
       if (before) {
         throw new InputError(
-          `${where(ctx, ['groups'])}: two recordings have the subject id '${id}': ${before.relPath} (${before.group}) and ${rec.relPath} (${group}) — rename one file, or use a subjects manifest if they are recordings of one subject`,
+          `${where(ctx, ['groups', group])}: two recordings have the subject id '${id}': ${before.relPath} (${before.group}) and ${rec.relPath} (${group}) — rename one file, or use a subjects manifest if they are recordings of one subject`,
         );
       }
       seen.set(id, rec);
@@ -77,6 +88,8 @@ function checkRecordingFile(path: string, at: string): void {
     if (statSync(path).isDirectory()) throw new InputError(`${at}: ${path} is a folder, not a recording file — name the file`);
   } catch (e) {
     if (e instanceof InputError) throw e;
+    const link = brokenLink(path);
+    if (link) throw new InputError(`${at}: the recording ${path} is ${describeBrokenLink(link)} — fix or remove the link (links are followed to the file they point at)`);
     const code = (e as NodeJS.ErrnoException).code;
     throw new InputError(`${at}: cannot find the recording ${path}: ${code === 'ENOENT' ? 'no such file' : String(code)} — check the path (relative to the study file)`);
   }

@@ -53,15 +53,18 @@ function describeError(error: ErrorObject, found: unknown, key: string): { text:
       const unknown = String(p.additionalProperty);
       const allowed = Object.keys((error.parentSchema as { properties?: object }).properties ?? {});
       const guess = closest(unknown, allowed);
-      return {
-        text: `unknown key '${unknown}'` + (guess ? ` — did you mean '${guess}'?` : ` — allowed keys here: ${allowed.join(', ')}`),
-        keyPathSuffix: unknown,
-      };
+      const home = guess ? undefined : sectionHolding(unknown);
+      const fix = guess
+        ? ` — did you mean '${guess}'?`
+        : home
+          ? ` — it belongs in the section '${home}': move it there (${home}.${unknown})`
+          : ` — remove it, or use one of the allowed keys here: ${allowed.join(', ')}`;
+      return { text: `unknown key '${unknown}'${fix}`, keyPathSuffix: unknown };
     }
     case 'required':
       return { text: `missing key '${String(p.missingProperty)}' — add it (see 'patternfold init' for a template)` };
     case 'type':
-      return { text: `${key} must be ${article(String(p.type))}, found ${showValue(found)}` };
+      return { text: `${key} must be ${article(String(p.type))}, found ${showValue(found)} — ${TYPE_FIXES[String(p.type)] ?? 'correct the value'}` };
     case 'enum': {
       const allowed = (p.allowedValues as unknown[]).map(String);
       const guess = typeof found === 'string' ? closest(found, allowed) : undefined;
@@ -80,9 +83,12 @@ function describeError(error: ErrorObject, found: unknown, key: string): { text:
       return { text: `${key} takes at most ${String(p.limit)} item(s), found ${Array.isArray(found) ? found.length : 0}` };
     case 'minProperties':
     case 'maxProperties':
-      return key === 'groups'
-        ? { text: `groups must name exactly two groups, found ${Object.keys(found as object).length} — patternfold compares two groups` }
-        : { text: `${key} has the wrong number of entries` };
+      if (key !== 'groups') return { text: `${key} has the wrong number of entries` };
+      return {
+        text:
+          `groups must name exactly two groups, found ${Object.keys(found as object).length} — patternfold compares two groups; ` +
+          (error.keyword === 'minProperties' ? 'add the second group' : 'remove the extra groups (one study per pair of groups)'),
+      };
     case 'uniqueItems':
       return { text: `${key} lists the same value twice (items ${String(p.j)} and ${String(p.i)}) — remove the duplicate` };
     case 'minLength':
@@ -94,6 +100,34 @@ function describeError(error: ErrorObject, found: unknown, key: string): { text:
     default:
       return { text: `${key} ${error.message ?? 'is not valid'}, found ${showValue(found)}` };
   }
+}
+
+/** The fix for a value of the wrong JSON type, by the type the schema expects. */
+const TYPE_FIXES: Record<string, string> = {
+  integer: 'write a whole number',
+  number: 'write a number (with a decimal point)',
+  array: 'write a list in brackets, e.g. [3, 4]',
+  string: 'write text (in quotes if it looks like a number or true/false)',
+  boolean: 'write true or false',
+  object: 'write a section of indented key: value lines',
+  null: 'write null or leave the key out',
+};
+
+/** The top-level section whose keys include `key` (e.g. 'permutations' -> 'evaluation'), if exactly one does. */
+function sectionHolding(key: string): string | undefined {
+  const sections = Object.entries(STUDY_SCHEMA.properties as Record<string, { properties?: Record<string, unknown> }>);
+  const homes = sections.filter(([, node]) => node.properties && key in node.properties).map(([name]) => name);
+  return homes.length === 1 ? homes[0] : undefined;
+}
+
+/** What is wrong and the fix, for a YAML syntax error, by the parser's error code (yaml's YAMLError.code). */
+function yamlProblem(code: string, reason: string, text: string, offset: number): string {
+  if (code === 'TAB_AS_INDENT') return `${reason} — indent with spaces, not tabs`;
+  if (code === 'DUPLICATE_KEY') {
+    const key = /^\s*["']?([^"':\n]+)/.exec(text.slice(offset))?.[1]?.trim();
+    return `the key ${key ? quoteFound(key) + ' ' : ''}appears twice in one section — remove one of them or merge the two`;
+  }
+  return `${reason} — check indentation, colons, brackets and quotes on that line`;
 }
 
 function article(type: string): string {
@@ -115,7 +149,7 @@ export function validateStudyText(text: string, label: string, overrides: Overri
     const err = doc.errors[0];
     const { line, col } = counter.linePos(err.pos[0]);
     const reason = err.message.split('\n')[0].replace(/ at line \d+, column \d+:?$/, '');
-    throw new InputError(`${locate(label, line, col)}: the study file is not valid YAML: ${reason} — check indentation, colons and quotes on that line`);
+    throw new InputError(`${locate(label, line, col)}: the study file is not valid YAML: ${yamlProblem(err.code, reason, text, err.pos[0])}`);
   }
   const data: unknown = doc.toJS() ?? {};
   if (typeof data !== 'object' || data === null || Array.isArray(data))
