@@ -34,7 +34,7 @@ export interface CorpusCase {
   /** Run as an unprivileged user (root reads every file, so permission cases need it). */
   unprivileged?: boolean;
   /** Further checks on a successful `features` run: the output folder. */
-  outputs?: 'pe-all' | 'pe-a1-large' | 'pe-a1-large-scale2' | 'constant-a2' | 'null-b2' | 'null-b1' | 'covariate-age' | 'symlink-b3';
+  outputs?: 'pe-all' | 'wpe-a1-large' | 'pe-a1-large' | 'pe-a1-large-scale2' | 'constant-a2' | 'null-b2' | 'null-b1' | 'covariate-age' | 'symlink-b3';
   /** A known gap: what must change, and where; the case is reported as todo until then. */
   todo?: string;
 }
@@ -253,4 +253,31 @@ export const CASES: CorpusCase[] = [
   // ---- selection --------------------------------------------------------------------------------
   { id: '68-start-past-end', checks: 'signal.start beyond the end of a recording', command: 'check', exit: 2, words: ['a1.csv', 'start 100 skips past the end', '60 samples'], fix: 'use a start below 60' },
   { id: '69-symlink-loop', checks: 'two symbolic links pointing at each other', command: 'check', exit: 2, setup: setups.symlinkLoop, words: ['study.yaml:3', 'a/a3.csv', 'symbolic link to a4.csv', 'loop'], fix: 'fix or remove the link' },
+  {
+    id: '70-near-max-double-weighted',
+    checks: 'weighted PE of values near 1.7e308 equals that of the unscaled series (weights scale by c^2)',
+    command: 'features',
+    exit: 0,
+    words: ['features.csv'],
+    outputs: 'wpe-a1-large',
+    todo:
+      'src/features (the window variance behind weighted_permutation_entropy) squares values near 1.7e308 to Infinity and reports the cell as null with the false reason "every valid window has zero variance"; divide the series by its largest magnitude before weighting (weighted PE is unchanged by x -> c·x), or say "values too large to square" in the reason',
+  },
+  {
+    id: '71-failure-keeps-previous-output',
+    checks: 'a failing features run leaves the output folder of an earlier run exactly as it was',
+    command: 'features',
+    exit: 2,
+    words: ['b1.csv:23', '"12:30"', 'not a number'],
+    fix: 'correct it',
+  },
+  {
+    id: '72-invalid-utf8-late',
+    checks: 'a non-UTF-8 byte far into a text file (past the 1024 bytes sniffed): file and line named',
+    command: 'check',
+    exit: 2,
+    setup: setups.invalidUtf8Late,
+    words: ['b2.csv:200', 'not UTF-8'],
+    fix: 'save the file as UTF-8',
+  },
 ];

@@ -92,6 +92,14 @@ export const setups = {
   growsWhileRead(dir: string): void {
     copyFileSync(join(dir, 'b/b2.csv'), join(dir, 'b/grows-while-read.csv'));
   },
+  /** 240 good lines (over 2 kB, past the 1024 bytes sniffed), then a Latin-1 byte (0xb5, "µ" in Latin-1) on line 200. */
+  invalidUtf8Late(dir: string): void {
+    const lines = readFileSync(join(dir, 'b/b2.csv'), 'utf8').trimEnd().split('\n');
+    const long = [...lines, ...lines, ...lines, ...lines];
+    const before = Buffer.from(long.slice(0, 199).join('\n') + '\n12.5 ', 'utf8');
+    const after = Buffer.from('V\n' + long.slice(200).join('\n') + '\n', 'utf8');
+    put(dir, 'b/b2.csv', Buffer.concat([before, Buffer.from([0xb5]), after]));
+  },
   /** A file name with a screen-clearing escape sequence and a right-to-left override. */
   hostileFileName(dir: string): void {
     copyFileSync(join(dir, 'a/a2.csv'), join(dir, 'a/\u001b[2J\u202egpj.csv'));
