@@ -1,7 +1,7 @@
 /**
  * Resolution of a recording: the smallest positive difference between two distinct values
  * (the quantisation step of an 8-bit or integer-millisecond recording, for instance; Zunino
- * et al. 2017, Phys. Rev. E 95, 022209, on why it matters to ordinal methods). NaN and
+ * et al. 2017, Phys. Lett. A 381, 1883, on why it matters to ordinal methods). NaN and
  * infinite values are ignored.
  *
  * O(n log n) (sorts a copy of the finite values; y is not changed). Returns NaN when fewer

@@ -5,7 +5,7 @@ import { dataResolution } from './data-resolution.ts';
  * A copy of y with independent uniform noise on [0, a) added to every finite sample, with a
  * = half the data's resolution ({@link dataResolution}). Two values that differed by at
  * least the resolution keep their order, so only tied values are ordered at random: the
- * tie-breaking by small noise discussed by Zunino et al. (2017, Phys. Rev. E 95, 022209).
+ * tie-breaking by small noise discussed by Zunino et al. (2017, Phys. Lett. A 381, 1883).
  * A series with a single distinct value c gets a = |c|·2^-20 (1 when c = 0). NaN stays NaN.
  * The noise is drawn from `rng` in sample order, so a seed fixes the result.
  *
