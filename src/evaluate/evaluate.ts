@@ -19,6 +19,7 @@ import type { GridCell } from './grid-scan.ts';
 import { importanceByCell, importanceByFeature, permutationImportance } from './importance.ts';
 import { classificationMetrics } from './metrics.ts';
 import { runPermutationTest } from './permutation.ts';
+import { rocCurve } from './roc.ts';
 import type { PermutablePipeline } from './permutation.ts';
 import type { EvaluationResult } from './result.ts';
 import type { EvaluationSettings, FeatureColumn, FeatureMatrix } from './types.ts';
@@ -155,7 +156,17 @@ export function evaluateWithClassifier(
       exceedances: run.headline.exceedances,
       permutations: B,
       stopped_early: run.stoppedEarly,
+      null_aucs: run.nullStatistics.map((stats) => stats[0]).filter((v) => Number.isFinite(v)),
+      roc: rocCurve(meanP, subjects.labels),
     },
+    predictions: Array.from({ length: headlineCv.aucByRepeat.length }, (_, repeat) =>
+      subjects.names.map((subject, s) => ({
+        subject,
+        group: matrix.groupNames[subjects.labels[s]],
+        repeat: repeat + 1,
+        probability: headlineCv.subjectProbabilities[repeat * design.nSubjects + s],
+      })),
+    ).flat(),
     subjects: subjects.names.map((subject, s) => ({ subject, group: matrix.groupNames[subjects.labels[s]], probability: meanP[s] })),
     cells: cells.map((c, i) => ({
       order: c.order,

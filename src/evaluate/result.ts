@@ -84,7 +84,14 @@ export interface EvaluationResult {
     /** B: permutations actually run (fewer than requested only after early stopping). */
     permutations: number;
     stopped_early: boolean;
+    /** The headline statistic under each label permutation, in permutation order (the null distribution). */
+    null_aucs: number[];
+    /** Empirical ROC curve of the repeat-averaged out-of-fold probabilities (Fawcett 2006). */
+    roc: { fpr: number; tpr: number }[];
   };
+
+  /** Each subject's out-of-fold probability in each repeat (repeats x subjects), for predictions.csv. */
+  predictions: { subject: string; group: string; repeat: number; probability: number }[];
 
   /** Each subject's out-of-fold probability of belonging to group_names[1], averaged over repeats and recordings. */
   subjects: { subject: string; group: string; probability: number }[];

@@ -4,6 +4,7 @@
  */
 import { arch, platform, release } from 'node:os';
 import type { Study } from '../study/index.ts';
+import type { EvaluationResult, UnivariateRow } from '../evaluate/index.ts';
 import { sha256Text } from './hash.ts';
 import type { FeatureStage } from './run-study.ts';
 import { subjectsPerGroup } from './warnings.ts';
@@ -42,6 +43,10 @@ export interface Results {
   }[];
   quality: { flaggedCells: number; cells: number; warnings: string[] };
   outputs: string[];
+  /** The statistics (null for `patternfold features`); field documentation in src/evaluate/result.ts. */
+  evaluation: EvaluationResult | null;
+  /** Univariate comparison per feature x cell, subjects averaged over their recordings (src/evaluate/univariate.ts). */
+  univariate: UnivariateRow[] | null;
   run: {
     stage: 'features' | 'all';
     commandLine: string;
@@ -54,6 +59,9 @@ export interface Results {
 }
 
 interface RunMeta {
+  evaluation: EvaluationResult | null;
+  univariate: UnivariateRow[] | null;
+  outputs: string[];
   started: Date;
   finished: Date;
   commandLine: string;
@@ -92,7 +100,9 @@ export function buildResults(study: Study, stage: FeatureStage, meta: RunMeta): 
       covariates: info.recording.covariates,
     })),
     quality: { flaggedCells: stage.quality.filter((q) => q.flagged).length, cells: stage.quality.length, warnings: stage.warnings },
-    outputs: meta.stage === 'features' ? ['features.csv', 'quality.csv', 'results.json'] : ['features.csv', 'quality.csv', 'results.json', 'report.html'],
+    outputs: meta.outputs,
+    evaluation: meta.evaluation,
+    univariate: meta.univariate,
     run: {
       stage: meta.stage,
       commandLine: meta.commandLine,

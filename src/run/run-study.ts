@@ -7,7 +7,12 @@ import type { Study } from '../study/index.ts';
 import { featureRows, featuresOfSeries, flaggedCellNotes, qualityRows, type FeatureRow, type QualityRow } from './feature-table.ts';
 import { forEachRecording, type RecordingInfo } from './read-cohort.ts';
 import { studyWarnings } from './warnings.ts';
-import { toCsvText } from './csv.ts';
+import { toArrowBytes, toCsvText } from './csv.ts';
+import { compareGroups, evaluateStudy, type EvaluationResult, type FeatureMatrix, type UnivariateRow } from '../evaluate/index.ts';
+import { renderReport } from '../report/index.ts';
+import { deriveSeed } from '../shared/random.ts';
+import { recordingMatrix, subjectMatrix } from './feature-matrix.ts';
+import { toReportInput } from './report-input.ts';
 import { stageFolder } from './output-folder.ts';
 import { buildResults, type Results } from './results.ts';
 
@@ -58,16 +63,81 @@ export async function computeFeatureStage(study: Study, onProgress?: RunOptions[
   };
 }
 
+/** Column name of a feature at a cell in the wide table, e.g. permutation_entropy_m3_d1_s2. */
+export function wideColumnName(c: { feature: string; order: number; delay: number; scale: number }): string {
+  return `${c.feature}_m${c.order}_d${c.delay}_s${c.scale}`;
+}
+
+/** One row per recording, one column per feature x cell; empty cells where a value is missing. */
+function wideRows(matrix: FeatureMatrix): Record<string, string | number | null>[] {
+  const p = matrix.columns.length;
+  return matrix.rowIds.map((id, i) => {
+    const row: Record<string, string | number | null> = { subject: matrix.subjects[i], recording: id, group: matrix.groupNames[matrix.labels[i]] };
+    matrix.columns.forEach((c, j) => {
+      const v = matrix.values[i * p + j];
+      row[wideColumnName(c)] = Number.isFinite(v) ? v : null;
+    });
+    return row;
+  });
+}
+
+/** Everything the statistics stage adds to a run. */
+interface StatisticsStage {
+  evaluation: EvaluationResult;
+  univariate: UnivariateRow[];
+  subjects: FeatureMatrix;
+  recordings: FeatureMatrix;
+}
+
+function computeStatistics(study: Study, stage: FeatureStage, onProgress?: RunOptions['onProgress']): StatisticsStage {
+  const recordings = recordingMatrix(study, stage.rows);
+  const subjects = subjectMatrix(recordings);
+  const evaluation = evaluateStudy(recordings, { ...study.evaluation, seed: deriveSeed(study.seed, 'evaluation') }, onProgress);
+  return { evaluation, univariate: compareGroups(subjects), subjects, recordings };
+}
+
 /** Runs the study and writes the output folder. Throws InputError before anything is written. */
 export async function runStudy(study: Study, options: RunOptions): Promise<RunOutcome> {
   const started = new Date();
   const stage = await computeFeatureStage(study, options.onProgress);
-  const files: [string, string][] = [
+  const files: [string, string | Uint8Array][] = [
     ['features.csv', toCsvText(stage.rows, FEATURE_COLUMNS)],
     ['quality.csv', toCsvText(stage.quality)],
   ];
-  const results = buildResults(study, stage, { started, finished: new Date(), commandLine: options.commandLine, stage: options.stage });
+  let statistics: StatisticsStage | null = null;
+  if (options.stage === 'all') {
+    statistics = computeStatistics(study, stage, options.onProgress);
+    files.push(
+      ['features-wide.csv', toCsvText(wideRows(statistics.recordings))],
+      ['univariate.csv', toCsvText(statistics.univariate.map(flattenUnivariate))],
+      ['predictions.csv', toCsvText(statistics.evaluation.predictions, ['subject', 'group', 'repeat', 'probability'])],
+      ['features.arrow', toArrowBytes(stage.rows)],
+    );
+  }
+  const finished = new Date();
+  const results = buildResults(study, stage, {
+    started,
+    finished,
+    commandLine: options.commandLine,
+    stage: options.stage,
+    evaluation: statistics?.evaluation ?? null,
+    univariate: statistics?.univariate ?? null,
+    outputs: [...files.map(([name]) => name), 'results.json', ...(statistics ? ['report.html'] : [])],
+  });
   files.push(['results.json', JSON.stringify(results, null, 2) + '\n']);
+  if (statistics) {
+    const input = toReportInput({
+      study,
+      stage,
+      evaluation: statistics.evaluation,
+      univariate: statistics.univariate,
+      subjects: statistics.subjects,
+      commandLine: options.commandLine.split(' '),
+      started,
+      durationMs: finished.getTime() - started.getTime(),
+    });
+    files.push(['report.html', await renderReport(input)]);
+  }
   const folder = stageFolder(options.out);
   try {
     for (const [name, content] of files) folder.write(name, content);
@@ -77,4 +147,29 @@ export async function runStudy(study: Study, options: RunOptions): Promise<RunOu
     throw e;
   }
   return { out: options.out, files: files.map(([name]) => name), warnings: stage.warnings, results };
+}
+
+/** A univariate row as a flat CSV record. */
+function flattenUnivariate(r: UnivariateRow): Record<string, string | number | null> {
+  return {
+    feature: r.feature,
+    order: r.order,
+    delay: r.delay,
+    scale: r.scale,
+    n0: r.group0.n,
+    mean0: r.group0.mean,
+    sd0: r.group0.sd,
+    n1: r.group1.n,
+    mean1: r.group1.mean,
+    sd1: r.group1.sd,
+    hedges_g: r.hedgesG,
+    g_low: r.gLow,
+    g_high: r.gHigh,
+    mann_whitney_u: r.u,
+    auc: r.auc,
+    p_value: r.pValue,
+    p_method: r.pMethod,
+    q_value: r.qValue,
+    reason: r.reason,
+  };
 }
