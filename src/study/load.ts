@@ -6,7 +6,8 @@ import { readFileSync, statSync } from 'node:fs';
 import { dirname, relative, resolve, sep } from 'node:path';
 import type { FeatureName, ScaleForm, TieRule } from '../features/types.ts';
 import type { ClassifierName } from '../evaluate/types.ts';
-import { InputError } from '../shared/errors.ts';
+import { InputError, locate } from '../shared/errors.ts';
+import { checkNameLength } from './names.ts';
 import { parseOverride } from './overrides.ts';
 import { recordingsFromGlobs, recordingsFromManifest } from './recordings.ts';
 import type { Study } from './types.ts';
@@ -53,6 +54,7 @@ export function loadStudy(path: string, options: LoadOptions = {}): Study {
   } else if (raw.groups !== undefined && !Array.isArray(raw.groups)) {
     const mapping = raw.groups as Record<string, string | string[]>;
     groups = Object.keys(mapping);
+    for (const group of groups) checkNameLength(group, 'group name', locate(label, studyPosition(text, ['groups', group])?.line));
     recordings = recordingsFromGlobs(ctx, mapping);
   } else {
     const pos = studyPosition(text, raw.groups ? ['groups'] : []);

@@ -9,6 +9,7 @@ import { readFileSync, statSync } from 'node:fs';
 import { basename, isAbsolute, relative, resolve } from 'node:path';
 import { globSync } from 'tinyglobby';
 import { InputError, locate } from '../shared/errors.ts';
+import { checkNameLength } from './names.ts';
 import { brokenLink, brokenLinksBeside, describeBrokenLink } from './broken-links.ts';
 import { showValue, studyPosition } from './validate.ts';
 import type { Recording } from './types.ts';
@@ -160,6 +161,8 @@ export function recordingsFromManifest(ctx: Context, manifest: string, groupName
     const group = cells[index('group')];
     const file = cells[index('file')];
     if (!subject || !group || !file) throw new InputError(`${lineAt}: subject, group and file must all be filled in`);
+    checkNameLength(subject, 'subject id', lineAt);
+    checkNameLength(group, 'group name', lineAt);
     if (groupNames && !groupNames.includes(group)) throw new InputError(`${lineAt}: subject '${subject}' is in group ${showValue(group)}, which the study does not list (groups: ${groupNames.join(', ')}) — fix the manifest or the study's groups`);
     if (!groupsSeen.includes(group)) groupsSeen.push(group);
     const earlierGroup = subjectGroup.get(subject);

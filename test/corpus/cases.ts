@@ -249,6 +249,15 @@ export const CASES: CorpusCase[] = [
   { id: '65-hostile-cell', checks: 'a cell with escape sequences: quoted with escapes in the error', command: 'features', exit: 2, setup: setups.hostileCell, words: ['a1.csv:3', 'not a number', '\\x1b[31m0.5\\x07'], fix: 'correct it' },
   { id: '66-hostile-manifest-subject', checks: 'manifest subject ids with escapes, backspaces and overrides', command: 'check', exit: 0, setup: setups.hostileManifest, words: ['a1\\u001b[31m', '\\u202eb1', 'b2\\u0008\\u0008'] },
   { id: '67-hostile-unknown-key', checks: 'an unknown key that is an OSC title sequence', command: 'check', exit: 2, words: ['study.yaml:7', 'unknown key', '\\u001b]0;pwned\\u0007'], fix: 'allowed keys' },
+  {
+    id: '73-hostile-group-names-features',
+    checks: 'hostile group names through features: the warnings (folds 3 > 2 subjects) stay escaped',
+    command: 'features',
+    exit: 0,
+    words: ["group '\\u001b[31mred\\u001b[0m' has 2 subject(s)", "group '\\u202eevil\\u0007' has 2 subject(s)", 'features.csv'],
+  },
+  { id: '74-very-long-group-name', checks: 'a group name of 210 characters is refused, quoted short', command: 'check', exit: 2, words: ['study.yaml:3', 'group name', 'is 210 characters long', '…'], fix: 'use a name of at most 100 characters' },
+  { id: '75-very-long-subject-id', checks: 'a manifest subject id of 150 characters is refused, quoted short', command: 'check', exit: 2, words: ['subjects.csv:3', 'subject id', 'is 150 characters long'], fix: 'use a name of at most 100 characters' },
 
   // ---- selection --------------------------------------------------------------------------------
   { id: '68-start-past-end', checks: 'signal.start beyond the end of a recording', command: 'check', exit: 2, words: ['a1.csv', 'start 100 skips past the end', '60 samples'], fix: 'use a start below 60' },
