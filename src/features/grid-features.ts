@@ -2,6 +2,7 @@ import { InputError } from '../shared/errors.ts';
 import { createRng, deriveSeed } from '../shared/random.ts';
 import { averageEstimates } from './average-estimates.ts';
 import { coarseGrain } from './coarse-grain.ts';
+import { dataResolution } from './data-resolution.ts';
 import { factorial } from './factorial.ts';
 import { jitterBelowResolution } from './jitter.ts';
 import { scanOrdinalPatterns, type OrdinalScan } from './ordinal-scan.ts';
@@ -92,8 +93,9 @@ function estimatesAtOffset(
   }
   const draws = delays.map(() => orders.map((): FeatureEstimate[] => []));
   const labels: string[] = [];
+  const resolution = dataResolution(y);
   for (let r = 0; r < options.jitterRepeats; r++) {
-    const jittered = jitterBelowResolution(y, createRng(deriveSeed(options.seed, 'jitter', scale, offset, r)));
+    const jittered = jitterBelowResolution(y, createRng(deriveSeed(options.seed, 'jitter', scale, offset, r)), resolution);
     labels.push(`jitter draw ${r + 1}`);
     delays.forEach((delay, d) =>
       scanOrdinalPatterns(jittered, delay, orders).forEach((scan, o) => draws[d][o].push(featuresFromScan(scan))),

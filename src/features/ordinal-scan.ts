@@ -226,7 +226,7 @@ function accumulate(y: Float64Array, buffers: ScanBuffers): void {
       shiftedSum += deviation;
       shiftedSquares += deviation * deviation;
       const variance = (shiftedSquares - shiftedSum * shiftedSum * reciprocal[k + 1]) * reciprocal[k + 1];
-      varianceAt[k + 1] = variance > 0 ? variance : 0;
+      varianceAt[k + 1] = variance < 0 ? 0 : variance; // rounding can go below 0; NaN (infinite samples) stays NaN
     }
     if (nearestTie > 0 && v - nearestTie * tau > tieFrom[chain]) tieFrom[chain] = v - nearestTie * tau;
 

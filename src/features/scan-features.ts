@@ -18,8 +18,8 @@ export interface FeatureEstimate {
  * {@link transitionFeatures}.
  *
  * O(patterns seen + edges). Missing values: with no valid window every feature is null
- * ("no valid window"); with valid windows that all have zero variance the weighted entropy is
- * null; with no two consecutive valid windows the five network features are null.
+ * ("no valid window"); with valid windows that all have zero variance, or one holding an
+ * infinite value, the weighted entropy is null; with no two consecutive valid windows the five network features are null.
  *
  * @example featuresFromScan(scanOrdinalPatterns(Float64Array.of(4, 7, 9, 10, 6, 11, 3), 1, [3])[0])
  *   .values.permutation_entropy // 0.588762155916294
@@ -42,8 +42,13 @@ export function featuresFromScan(scan: OrdinalScan): FeatureEstimate {
     values.statistical_complexity = statisticalComplexity(scan.counts, M);
     values.missing_patterns = (M - scan.patterns.length) / M;
     const totalWeight = scan.weights.reduce((a, b) => a + b, 0);
-    if (totalWeight > 0) values.weighted_permutation_entropy = normalizedEntropy(scan.weights, M);
-    else missing('weighted_permutation_entropy', 'every valid window has zero variance, so no window carries weight');
+    if (!Number.isFinite(totalWeight)) {
+      missing('weighted_permutation_entropy', 'a window holds an infinite value, so its variance (the weight) is undefined');
+    } else if (totalWeight > 0) {
+      values.weighted_permutation_entropy = normalizedEntropy(scan.weights, M);
+    } else {
+      missing('weighted_permutation_entropy', 'every valid window has zero variance, so no window carries weight');
+    }
   }
   const network = transitionFeatures(scan.transitions);
   if (network === null) {

@@ -185,3 +185,12 @@ describe('argument checks', () => {
     expect(() => computeGridFeatures(x, grid, { ...base, ties: 'jitter', jitterRepeats: 0 })).toThrow('jitterRepeats: 0 is not an integer >= 1');
   });
 });
+
+describe('infinite values', () => {
+  it('are ordered like any value, but make the weighted entropy null with its own reason', () => {
+    const [cell] = computeGridFeatures(Float64Array.of(1, 3, Infinity, 2, 5, 4), { order: [3], delay: [1], scale: [1] }, base);
+    expect(cell.values.permutation_entropy).not.toBeNull();
+    expect(cell.values.weighted_permutation_entropy).toBeNull();
+    expect(cell.reasons.weighted_permutation_entropy).toMatch(/infinite value/);
+  });
+});
