@@ -73,6 +73,7 @@ async function runPipeline(cmd: ParsedCommand, io: Io, stage: 'features' | 'all'
   });
   if (!quiet && outcome.warnings.length > 0) io.err(`${outcome.warnings.length} warning(s):\n` + outcome.warnings.map((w) => `  - ${safeText(w)}`).join('\n'));
   io.out(`wrote ${outcome.files.map((f) => safeText(`${out}/${f}`)).join(', ')}`);
+  if (outcome.keyFile) io.out(`pseudonym key (keep it private; it is not in the report folder): ${safeText(outcome.keyFile)}`);
   return 0;
 }
 

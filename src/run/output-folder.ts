@@ -45,3 +45,12 @@ export function stageFolder(target: string): StagedFolder {
     },
   };
 }
+
+/** Writes one file atomically: a temporary name in the same folder, then a rename. */
+export function writeFileAtomic(path: string, content: string | Uint8Array): void {
+  const final = resolve(path);
+  mkdirSync(dirname(final), { recursive: true });
+  const temporary = join(dirname(final), `.${basename(final)}.tmp-${randomBytes(4).toString('hex')}`);
+  writeFileSync(temporary, content);
+  renameSync(temporary, final);
+}

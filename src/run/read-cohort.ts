@@ -31,7 +31,7 @@ export async function forEachRecording<T>(
     const series = await readSeries(recording.path, study.signal);
     const info: RecordingInfo = {
       recording,
-      sha256: sha256File(recording.path),
+      sha256: series.source?.sha256 ?? sha256File(recording.path),
       format: series.format,
       channel: series.channel,
       sampleRate: series.sampleRate,

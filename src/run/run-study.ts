@@ -13,6 +13,8 @@ import { renderReport } from '../report/index.ts';
 import { deriveSeed } from '../shared/random.ts';
 import { recordingMatrix, subjectMatrix } from './feature-matrix.ts';
 import { toReportInput } from './report-input.ts';
+import { pseudonymiseStudy, type PseudonymKeyRow } from './pseudonyms.ts';
+import { writeFileAtomic } from './output-folder.ts';
 import { stageFolder } from './output-folder.ts';
 import { buildResults, type Results } from './results.ts';
 
@@ -31,6 +33,8 @@ export interface RunOutcome {
   files: string[];
   warnings: string[];
   results: Results;
+  /** Where the pseudonym key was written (beside, never inside, the output folder), or null. */
+  keyFile: string | null;
 }
 
 export const FEATURE_COLUMNS = ['subject', 'group', 'order', 'delay', 'scale', 'feature', 'value', 'recording', 'reason'];
@@ -97,8 +101,10 @@ function computeStatistics(study: Study, stage: FeatureStage, onProgress?: RunOp
 }
 
 /** Runs the study and writes the output folder. Throws InputError before anything is written. */
-export async function runStudy(study: Study, options: RunOptions): Promise<RunOutcome> {
+export async function runStudy(original: Study, options: RunOptions): Promise<RunOutcome> {
   const started = new Date();
+  const pseudonyms = original.report.pseudonyms ? pseudonymiseStudy(original) : null;
+  const study = pseudonyms?.study ?? original;
   const stage = await computeFeatureStage(study, options.onProgress);
   const files: [string, string | Uint8Array][] = [
     ['features.csv', toCsvText(stage.rows, FEATURE_COLUMNS)],
@@ -146,7 +152,8 @@ export async function runStudy(study: Study, options: RunOptions): Promise<RunOu
     folder.abandon();
     throw e;
   }
-  return { out: options.out, files: files.map(([name]) => name), warnings: stage.warnings, results };
+  const keyFile = pseudonyms ? writePseudonymKey(options.out, pseudonyms.key) : null;
+  return { out: options.out, files: files.map(([name]) => name), warnings: stage.warnings, results, keyFile };
 }
 
 /** A univariate row as a flat CSV record. */
@@ -172,4 +179,11 @@ function flattenUnivariate(r: UnivariateRow): Record<string, string | number | n
     q_value: r.qValue,
     reason: r.reason,
   };
+}
+
+/** Writes the pseudonym key beside the output folder as `<folder>.pseudonym-key.csv`. */
+function writePseudonymKey(out: string, key: PseudonymKeyRow[]): string {
+  const path = `${out.replace(/[\\/]+$/, '')}.pseudonym-key.csv`;
+  writeFileAtomic(path, toCsvText(key, ['pseudonym', 'subject', 'recording', 'file']));
+  return path;
 }

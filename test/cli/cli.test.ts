@@ -94,3 +94,22 @@ describe('command line', () => {
     expect(readdirSync(dir).filter((f) => f.includes('staging'))).toEqual([]);
   });
 });
+
+describe('pseudonyms', () => {
+  it('keep subject ids and file names out of the output folder and write the key beside it', async () => {
+    const dir = twoGroupStudy(MINIMAL + 'report: {pseudonyms: true}\n', 3, 150);
+    const out = join(dir, 'out');
+    const r = await cli('features', join(dir, 'study.yaml'), '--out', out, '--quiet');
+    expect(r.code).toBe(0);
+    for (const file of readdirSync(out)) {
+      const text = readFileSync(join(out, file), 'utf8');
+      for (const id of ['a0', 'a1', 'a2', 'b0', 'b1', 'b2']) expect(text).not.toMatch(new RegExp(`\\b${id}\\b`));
+    }
+    const key = readFileSync(`${out}.pseudonym-key.csv`, 'utf8').trim().split('\n');
+    expect(key[0]).toBe('pseudonym,subject,recording,file');
+    expect(key.slice(1).map((l) => l.split(',')[1]).sort()).toEqual(['a0', 'a1', 'a2', 'b0', 'b1', 'b2']);
+    // Stable: a second run gives the same pseudonyms.
+    await cli('features', join(dir, 'study.yaml'), '--out', join(dir, 'out2'), '--quiet');
+    expect(readFileSync(join(dir, 'out2.pseudonym-key.csv'), 'utf8')).toBe(readFileSync(`${out}.pseudonym-key.csv`, 'utf8'));
+  });
+});
