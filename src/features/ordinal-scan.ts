@@ -60,9 +60,10 @@ const enum EdgeMode {
  * samples with sums shifted by the newest sample (the shifted-data algorithm of Chan, Golub &
  * LeVeque 1983, Am. Stat. 37, 242: the shift lies inside the window, which bounds the
  * cancellation; a constant window gives exactly 0). O(n · (m_max + orders)) time;
- * memory O(sum of m! + transition tables), plus 8 bytes per window for orders whose
- * transition matrix is too large to hold densely (delay >= 2 with m >= 7, or symbols with
- * m >= 5), whose edges are then sorted (O(N log N)).
+ * memory O(sum of m! + transition tables), plus 4 bytes per window (8 when the key
+ * source·space + target can exceed 2^32) for orders whose transition matrix is too large to
+ * hold densely (delay >= 2 with m >= 7, or symbols with m >= 5), whose edges are then sorted
+ * (O(N log N)).
  *
  * Orders are deduplicated and returned ascending. A series too short for an order gives
  * validWindows 0 and empty lists. Throws a RangeError for an order outside 2..9, no order,
