@@ -34,7 +34,7 @@ export function countOrdinalPatterns(y: Float64Array, order: number, delay: numb
   assertDelay(delay, 'countOrdinalPatterns');
   const counts = new Int32Array(factorial(order));
   const countRun = RUN_COUNTERS[order];
-  for (let chain = 0; chain < delay; chain++) {
+  for (let chain = 0; chain < delay && chain < y.length; chain++) {
     let first = nextCompleteWindow(y, chain, delay, order);
     while (first < y.length) {
       const stop = countRun(y, first, delay, counts);

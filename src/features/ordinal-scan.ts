@@ -188,9 +188,11 @@ function accumulate(y: Float64Array, buffers: ScanBuffers): void {
 
   // Per chain: codes of orders 1..maxOrder (slot k holds order k+1), latest NaN, latest start
   // of a pair of equal samples.
-  const codes = new Int32Array(tau * maxOrder);
-  const lastMissing = new Float64Array(tau).fill(-1);
-  const tieFrom = new Float64Array(tau).fill(-1);
+  // (a chain index never reaches n, so a huge delay costs no memory)
+  const chains = Math.max(1, Math.min(tau, n));
+  const codes = new Int32Array(chains * maxOrder);
+  const lastMissing = new Float64Array(chains).fill(-1);
+  const tieFrom = new Float64Array(chains).fill(-1);
   const digitAt = new Int32Array(maxOrder + 1);
   const varianceAt = new Float64Array(maxOrder + 1);
   const fullSpan = (maxOrder - 1) * tau;

@@ -194,3 +194,11 @@ describe('infinite values', () => {
     expect(cell.reasons.weighted_permutation_entropy).toMatch(/infinite value/);
   });
 });
+
+describe('a delay longer than the recording', () => {
+  it('gives no window, quickly and without a large allocation', () => {
+    const [cell] = computeGridFeatures(noise(50, 9), { order: [3], delay: [1e9], scale: [1] }, base);
+    expect(cell.quality.validWindows).toBe(0);
+    expect(cell.values.permutation_entropy).toBeNull();
+  });
+});

@@ -100,3 +100,10 @@ describe('incremental kernels agree with sorting every window', () => {
     expect(y).toEqual(copy);
   });
 });
+
+describe('a delay longer than the series', () => {
+  it('counts nothing and returns at once', () => {
+    expect(countOrdinalPatterns(Float64Array.of(1, 2, 3), 3, 2 ** 30).validWindows).toBe(0);
+    expect(scanOrdinalPatterns(Float64Array.of(1, 2, 3), 2 ** 30, [3])[0].validWindows).toBe(0);
+  });
+});
