@@ -56,7 +56,9 @@ export function computeGridFeatures(x: Float64Array, grid: Grid, options: Featur
   checkOptions(options);
   const cells: CellFeatures[] = [];
   for (const scale of scales) {
-    const offsets = options.scaleForm === 'composite' ? Array.from({ length: scale }, (_, i) => i) : [0];
+    // a scale beyond the recording leaves every offset empty: one offset says so
+    const offsetCount = options.scaleForm === 'composite' && scale <= x.length ? scale : 1;
+    const offsets = Array.from({ length: offsetCount }, (_, i) => i);
     // results[delayIndex][orderIndex][offsetIndex]
     const results = delays.map(() => orders.map((): OffsetResult[] => []));
     for (const offset of offsets) {

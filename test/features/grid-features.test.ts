@@ -202,3 +202,11 @@ describe('a delay longer than the recording', () => {
     expect(cell.values.permutation_entropy).toBeNull();
   });
 });
+
+describe('a scale longer than the recording', () => {
+  it('composite form: every feature null, at once', () => {
+    const [cell] = computeGridFeatures(noise(50, 10), { order: [3], delay: [1], scale: [1e9] }, { ...base, scaleForm: 'composite' });
+    expect(cell.quality.validWindows).toBe(0);
+    for (const name of FEATURE_NAMES) expect(cell.values[name]).toBeNull();
+  });
+});
