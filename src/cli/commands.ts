@@ -38,6 +38,11 @@ const OUT: OptionSpec = {
   default: 'reports/<study name>/<time>-<hash>',
 };
 const HELP: OptionSpec = { name: 'help', short: 'h', type: 'boolean', description: 'show this help' };
+const FORCE: OptionSpec = {
+  name: 'force',
+  type: 'boolean',
+  description: 'start even when check estimates the run as unreasonably long or the grid as unsupported by the recordings',
+};
 const QUIET: OptionSpec = { name: 'quiet', short: 'q', type: 'boolean', description: 'print only errors and the final summary' };
 
 export const COMMANDS: CommandSpec[] = [
@@ -70,7 +75,7 @@ export const COMMANDS: CommandSpec[] = [
     name: 'run',
     summary: 'run the whole study: features, statistics, report',
     positionals: [{ name: 'STUDY', required: true, description: 'the study file (YAML)' }],
-    options: [OUT, SET, QUIET, HELP],
+    options: [OUT, SET, QUIET, FORCE, HELP],
     examples: ['patternfold run studies/demo.yaml --out reports/demo', 'patternfold run studies/demo.yaml --set grid.scale=1,2,8 --set evaluation.permutations=199'],
   },
   {

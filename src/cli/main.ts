@@ -66,6 +66,7 @@ async function runPipeline(cmd: ParsedCommand, io: Io, stage: 'features' | 'all'
   const outcome: RunOutcome = await runStudy(study, {
     out,
     stage,
+    force: Boolean(cmd.values.force),
     commandLine: ['patternfold', ...argv].join(' '),
     onProgress: quiet ? undefined : (name, done, total) => {
       if (done === total || done % 10 === 0) io.err(`${name}: ${done}/${total}`);

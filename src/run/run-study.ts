@@ -13,6 +13,8 @@ import { renderReport } from '../report/index.ts';
 import { deriveSeed } from '../shared/random.ts';
 import { recordingMatrix, subjectMatrix } from './feature-matrix.ts';
 import { toReportInput } from './report-input.ts';
+import { resourceConcerns } from './cost.ts';
+import { InputError } from '../shared/errors.ts';
 import { pseudonymiseStudy, type PseudonymKeyRow } from './pseudonyms.ts';
 import { writeFileAtomic } from './output-folder.ts';
 import { stageFolder } from './output-folder.ts';
@@ -21,6 +23,8 @@ import { buildResults, type Results } from './results.ts';
 export interface RunOptions {
   out: string;
   stage: 'features' | 'all';
+  /** Start even when resourceConcerns() objects (the statistics stage only). */
+  force?: boolean;
   /** The command line as typed, for the reproduction record. */
   commandLine: string;
   /** Progress callback: stage name, done, total. */
@@ -105,7 +109,9 @@ export async function runStudy(original: Study, options: RunOptions): Promise<Ru
   const started = new Date();
   const pseudonyms = original.report.pseudonyms ? pseudonymiseStudy(original) : null;
   const study = pseudonyms?.study ?? original;
+  if (options.stage === 'all' && !options.force) refuseUnreasonable(study, []);
   const stage = await computeFeatureStage(study, options.onProgress);
+  if (options.stage === 'all' && !options.force) refuseUnreasonable(study, stage.infos.map((i) => i.summary.length));
   const files: [string, string | Uint8Array][] = [
     ['features.csv', toCsvText(stage.rows, FEATURE_COLUMNS)],
     ['quality.csv', toCsvText(stage.quality)],
@@ -154,6 +160,12 @@ export async function runStudy(original: Study, options: RunOptions): Promise<Ru
   }
   const keyFile = pseudonyms ? writePseudonymKey(options.out, pseudonyms.key) : null;
   return { out: options.out, files: files.map(([name]) => name), warnings: stage.warnings, results, keyFile };
+}
+
+/** Throws InputError (exit 2, nothing written) when the study needs --force. */
+function refuseUnreasonable(study: Study, lengths: number[]): void {
+  const concerns = resourceConcerns(study, lengths);
+  if (concerns.length > 0) throw new InputError(`${study.file}: ${concerns[0]}`);
 }
 
 /** A univariate row as a flat CSV record. */

@@ -6,6 +6,7 @@
 import { factorial } from '../features/index.ts';
 import type { Study } from '../study/index.ts';
 import type { RecordingInfo } from './read-cohort.ts';
+import { resourceConcerns } from './cost.ts';
 
 /** Share of adjacent equal samples above which a recording counts as coarsely quantised (our choice, documented in README). */
 export const TIED_SHARE_WARNING = 0.05;
@@ -33,6 +34,7 @@ export function studyWarnings(study: Study, infos: RecordingInfo[]): string[] {
       );
     }
   }
+  warnings.push(...resourceConcerns(study, infos.map((i) => i.summary.length)));
   warnings.push(...shortRecordingWarnings(study, infos));
   for (const info of infos) {
     const id = info.recording.id;
