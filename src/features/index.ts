@@ -16,3 +16,4 @@ export { featuresFromScan, type FeatureEstimate } from './scan-features.ts';
 export { averageEstimates } from './average-estimates.ts';
 export { dataResolution } from './data-resolution.ts';
 export { jitterBelowResolution } from './jitter.ts';
+export { FEATURE_DEFINITIONS_VERSION } from './version.ts';
