@@ -4,5 +4,6 @@
 import { register } from 'tsx/esm/api';
 
 register();
-const { main } = await import('../src/cli/main.ts');
+const { main, installInterruptHandlers } = await import('../src/cli/main.ts');
+installInterruptHandlers();
 process.exitCode = await main(process.argv.slice(2));

@@ -6,7 +6,7 @@ import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { InputError } from '../shared/errors.ts';
 import { loadStudy, STUDY_SCHEMA, studyTemplate, type Study } from '../study/index.ts';
-import { checkStudy, runStudy, sha256Text, TOOL_VERSION, type RunOutcome } from '../run/index.ts';
+import { abandonActiveStaging, checkStudy, runStudy, sha256Text, TOOL_VERSION, type RunOutcome } from '../run/index.ts';
 import { commandHelp, mainHelp } from './help.ts';
 import { findCommand, parseCommand, type ParsedCommand } from './parse.ts';
 import { formatTable, processIo, safeText, type Io } from './terminal.ts';
@@ -115,6 +115,22 @@ async function dispatch(argv: string[], io: Io): Promise<number> {
       return runSchema(cmd, io);
     default:
       throw new Error(`command ${cmd.spec.name} is declared but has no handler`);
+  }
+}
+
+/**
+ * On Ctrl-C or SIGTERM: remove this run's unfinished staging folder, say what was kept, and
+ * exit with 130 (SIGINT) or 143 (SIGTERM), the shell convention 128 + signal number.
+ */
+export function installInterruptHandlers(io: Io = processIo): void {
+  for (const [signal, code] of [['SIGINT', 130], ['SIGTERM', 143]] as const) {
+    process.once(signal, () => {
+      const removed = abandonActiveStaging();
+      io.err(
+        `patternfold: interrupted (${signal}): ${removed > 0 ? 'the unfinished output was removed; ' : ''}no output folder was changed (a previous complete one is kept as it was)`,
+      );
+      process.exit(code);
+    });
   }
 }
 

@@ -3,7 +3,7 @@
  * target, and the staging folder replaces the target only when all files are complete. A
  * run that fails or is killed leaves the previous complete folder (or none), never a mix.
  */
-import { existsSync, mkdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { randomBytes } from 'node:crypto';
 
@@ -16,14 +16,52 @@ export interface StagedFolder {
   abandon(): void;
 }
 
+/** Staging folders of this process not yet committed or abandoned (removed on SIGINT/SIGTERM). */
+const activeStaging = new Set<string>();
+
+/** Removes this process's unfinished staging folders; returns how many there were. */
+export function abandonActiveStaging(): number {
+  const count = activeStaging.size;
+  for (const path of activeStaging) rmSync(path, { recursive: true, force: true });
+  activeStaging.clear();
+  return count;
+}
+
+function processAlive(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch (e) {
+    return (e as NodeJS.ErrnoException).code === 'EPERM';
+  }
+}
+
+/**
+ * Tidies what a killed run (SIGKILL, power loss) left beside `final`: its staging folder is
+ * removed, and a previous folder it had moved aside is put back when the target is missing.
+ */
+function recoverAfterKilledRun(final: string): void {
+  const parent = dirname(final);
+  const pattern = new RegExp(`^\\.${basename(final).replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}\\.(staging|previous)-(\\d+)-[0-9a-f]+$`);
+  for (const name of readdirSync(parent)) {
+    const match = pattern.exec(name);
+    if (!match || processAlive(Number(match[2]))) continue;
+    const path = join(parent, name);
+    if (match[1] === 'previous' && !existsSync(final)) renameSync(path, final);
+    else rmSync(path, { recursive: true, force: true });
+  }
+}
+
 /** Starts a staged folder for `target`. Nothing appears at `target` until commit(). */
 export function stageFolder(target: string): StagedFolder {
   const final = resolve(target);
   const parent = dirname(final);
   mkdirSync(parent, { recursive: true });
-  const tag = randomBytes(4).toString('hex');
+  recoverAfterKilledRun(final);
+  const tag = `${process.pid}-${randomBytes(4).toString('hex')}`;
   const staging = join(parent, `.${basename(final)}.staging-${tag}`);
   mkdirSync(staging);
+  activeStaging.add(staging);
   return {
     write(name, content) {
       const path = join(staging, name);
@@ -39,9 +77,11 @@ export function stageFolder(target: string): StagedFolder {
       } else {
         renameSync(staging, final);
       }
+      activeStaging.delete(staging);
     },
     abandon() {
       rmSync(staging, { recursive: true, force: true });
+      activeStaging.delete(staging);
     },
   };
 }

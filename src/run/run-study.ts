@@ -14,6 +14,7 @@ import { deriveSeed } from '../shared/random.ts';
 import { recordingMatrix, subjectMatrix } from './feature-matrix.ts';
 import { toReportInput } from './report-input.ts';
 import { resourceConcerns } from './cost.ts';
+import { pauseIfRequested } from './test-pause.ts';
 import { InputError } from '../shared/errors.ts';
 import { pseudonymiseStudy, type PseudonymKeyRow } from './pseudonyms.ts';
 import { writeFileAtomic } from './output-folder.ts';
@@ -105,7 +106,14 @@ function computeStatistics(study: Study, stage: FeatureStage, onProgress?: RunOp
 }
 
 /** Runs the study and writes the output folder. Throws InputError before anything is written. */
-export async function runStudy(original: Study, options: RunOptions): Promise<RunOutcome> {
+export async function runStudy(original: Study, given: RunOptions): Promise<RunOutcome> {
+  const options: RunOptions = {
+    ...given,
+    onProgress: (stage, done, total) => {
+      given.onProgress?.(stage, done, total);
+      pauseIfRequested(stage, done);
+    },
+  };
   const started = new Date();
   const pseudonyms = original.report.pseudonyms ? pseudonymiseStudy(original) : null;
   const study = pseudonyms?.study ?? original;
@@ -153,6 +161,7 @@ export async function runStudy(original: Study, options: RunOptions): Promise<Ru
   const folder = stageFolder(options.out);
   try {
     for (const [name, content] of files) folder.write(name, content);
+    pauseIfRequested('commit');
     folder.commit();
   } catch (e) {
     folder.abandon();

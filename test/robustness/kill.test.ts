@@ -1,0 +1,109 @@
+/**
+ * Interrupted runs lose nothing and fool no one (issue 7): a real run in a child process is
+ * killed with SIGKILL at several points; the output folder is then either absent or the
+ * previous complete one, and a rerun gives exactly the numbers of an uninterrupted run.
+ * The pause points come from the test hook in src/run/test-pause.ts.
+ */
+import { spawn, spawnSync } from 'node:child_process';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { twoGroupStudy } from '../helpers/tmp.ts';
+
+const BIN = join(import.meta.dirname, '..', '..', 'bin', 'patternfold.js');
+const STUDY = `name: kill-test
+seed: 7
+groups:
+  a: a/*.csv
+  b: b/*.csv
+grid: {order: [3, 4], delay: [1], scale: [1, 2]}
+evaluation: {folds: 3, repeats: 2, permutations: 30, trees: 20}
+`;
+
+function runToEnd(dir: string, out: string): void {
+  const r = spawnSync(process.execPath, [BIN, 'run', join(dir, 'study.yaml'), '--out', out, '--quiet'], { encoding: 'utf8' });
+  expect(r.stderr).toBe('');
+  expect(r.status).toBe(0);
+}
+
+/** Starts a run that pauses at `point`, waits until it says so, then kills it with SIGKILL. */
+async function killAt(dir: string, out: string, point: string): Promise<void> {
+  const child = spawn(process.execPath, [BIN, 'run', join(dir, 'study.yaml'), '--out', out, '--quiet'], {
+    env: { ...process.env, PATTERNFOLD_TEST_PAUSE: point },
+  });
+  await new Promise<void>((resolve, reject) => {
+    let err = '';
+    child.stderr.on('data', (chunk: Buffer) => {
+      err += chunk.toString();
+      if (err.includes('patternfold-test-paused')) {
+        child.kill('SIGKILL');
+        resolve();
+      }
+    });
+    child.on('exit', (code) => reject(new Error(`the run ended (${code}) before pausing at ${point}: ${err}`)));
+  });
+  await new Promise((resolve) => child.once('exit', resolve));
+}
+
+/** The parts of a run's output that must not depend on interruptions (times and paths aside). */
+function numbers(out: string): unknown {
+  const results = JSON.parse(readFileSync(join(out, 'results.json'), 'utf8'));
+  return {
+    features: readFileSync(join(out, 'features.csv'), 'utf8'),
+    quality: readFileSync(join(out, 'quality.csv'), 'utf8'),
+    predictions: readFileSync(join(out, 'predictions.csv'), 'utf8'),
+    evaluation: results.evaluation,
+    univariate: results.univariate,
+    recordings: results.recordings,
+  };
+}
+
+const leftovers = (dir: string) => readdirSync(dir).filter((f) => f.includes('.staging-') || f.includes('.previous-'));
+
+describe('a run killed with SIGKILL', () => {
+  const dir = twoGroupStudy(STUDY, 6, 300);
+  const reference = join(dir, 'reference');
+  runToEnd(dir, reference);
+
+  for (const point of ['features:3', 'permutations:10', 'commit']) {
+    it(`at ${point} leaves no output folder, and a rerun equals an uninterrupted run`, async () => {
+      const out = join(dir, `killed-${point.replace(':', '-')}`);
+      await killAt(dir, out, point);
+      expect(existsSync(out)).toBe(false);
+      runToEnd(dir, out);
+      expect(numbers(out)).toEqual(numbers(reference));
+      expect(leftovers(dir)).toEqual([]);
+    });
+  }
+
+  it('while replacing an earlier complete output keeps that output intact', async () => {
+    const out = join(dir, 'replaced');
+    runToEnd(dir, out);
+    const before = readFileSync(join(out, 'report.html'), 'utf8');
+    await killAt(dir, out, 'commit');
+    expect(readFileSync(join(out, 'report.html'), 'utf8')).toBe(before);
+    expect(numbers(out)).toEqual(numbers(reference));
+  });
+});
+
+describe('a run stopped with SIGTERM', () => {
+  it('says that no output folder was changed and exits with 143 (128 + 15)', async () => {
+    const dir = twoGroupStudy(STUDY, 6, 300);
+    const out = join(dir, 'out');
+    const child = spawn(process.execPath, [BIN, 'run', join(dir, 'study.yaml'), '--out', out]);
+    let err = '';
+    let sent = false;
+    child.stderr.on('data', (chunk: Buffer) => {
+      err += chunk.toString();
+      if (!sent && /features/.test(err)) {
+        sent = true;
+        child.kill('SIGTERM');
+      }
+    });
+    const code = await new Promise((resolve) => child.once('exit', (c) => resolve(c)));
+    expect(code).toBe(143);
+    expect(err).toMatch(/interrupted \(SIGTERM\): .*no output folder was changed/);
+    expect(existsSync(out)).toBe(false);
+    expect(leftovers(dir)).toEqual([]);
+  });
+});
