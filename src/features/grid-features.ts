@@ -8,6 +8,7 @@ import { jitterBelowResolution } from './jitter.ts';
 import { scanOrdinalPatterns, type OrdinalScan } from './ordinal-scan.ts';
 import { featuresFromScan, type FeatureEstimate } from './scan-features.ts';
 import type { CellFeatures, CellQuality, FeatureOptions, Grid } from './types.ts';
+import { safeRange } from './safe-range.ts';
 
 /** What one coarse-graining (one offset) contributes to a cell. */
 interface OffsetResult {
@@ -49,7 +50,8 @@ interface OffsetResult {
  *   { ties: 'appearance', jitterRepeats: 1, scaleForm: 'coarse', seed: 1, minWindowsPerPattern: 5 })[0]
  *   .values.permutation_entropy // 0.588762155916294
  */
-export function computeGridFeatures(x: Float64Array, grid: Grid, options: FeatureOptions): CellFeatures[] {
+export function computeGridFeatures(recording: Float64Array, grid: Grid, options: FeatureOptions): CellFeatures[] {
+  const x = safeRange(recording);
   const orders = checkedAxis(grid.order, 'grid.order', 2, 9);
   const delays = checkedAxis(grid.delay, 'grid.delay', 1, Infinity);
   const scales = checkedAxis(grid.scale, 'grid.scale', 1, Infinity);

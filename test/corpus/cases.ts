@@ -150,8 +150,6 @@ export const CASES: CorpusCase[] = [
     exit: 0,
     words: ['features.csv'],
     outputs: 'pe-a1-large-scale2',
-    todo:
-      'src/features/coarse-grain.ts sums a block before dividing, so two samples near 1.7e308 give Infinity and false ties (measured here: PE 0.547 instead of 0.952); divide each sample by s before adding, or rescale when the sum is not finite',
   },
   {
     id: '42-all-nan-recording-check',
@@ -269,8 +267,6 @@ export const CASES: CorpusCase[] = [
     exit: 0,
     words: ['features.csv'],
     outputs: 'wpe-a1-large',
-    todo:
-      'src/features (the window variance behind weighted_permutation_entropy) squares values near 1.7e308 to Infinity and reports the cell as null with the false reason "every valid window has zero variance"; divide the series by its largest magnitude before weighting (weighted PE is unchanged by x -> c·x), or say "values too large to square" in the reason',
   },
   {
     id: '71-failure-keeps-previous-output',

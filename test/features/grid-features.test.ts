@@ -210,3 +210,17 @@ describe('a scale longer than the recording', () => {
     for (const name of FEATURE_NAMES) expect(cell.values[name]).toBeNull();
   });
 });
+
+describe('values near the largest double', () => {
+  it('give the features of the same series scaled down (every feature is scale invariant) [D]', () => {
+    const base = Float64Array.from({ length: 400 }, (_, i) => Math.sin(i * 1.3) + 0.5 * Math.sin(i * 0.37));
+    const huge = base.map((v) => v * 1.5e307);
+    const options = { ties: 'appearance' as const, jitterRepeats: 1, scaleForm: 'coarse' as const, seed: 1, minWindowsPerPattern: 5 };
+    const grid = { order: [3, 4], delay: [1, 2], scale: [1, 2] };
+    const a = computeGridFeatures(base, grid, options);
+    const b = computeGridFeatures(huge, grid, options);
+    for (let i = 0; i < a.length; i++) {
+      for (const [name, value] of Object.entries(a[i].values)) expect(b[i].values[name as keyof typeof a[number]['values']]).toBeCloseTo(value as number, 12);
+    }
+  });
+});
