@@ -24,7 +24,7 @@ aside.cautions h3 { margin-top: .2rem; }
 .num { font-variant-numeric: tabular-nums; white-space: nowrap; }
 td.num, th.num { text-align: right; }
 table { border-collapse: collapse; margin: .4rem 0 .8rem; font-size: .88rem; }
-th, td { border-bottom: 1px solid var(--rule); padding: .25rem .5rem; vertical-align: top; text-align: left; overflow-wrap: anywhere; }
+th, td { border-bottom: 1px solid var(--rule); padding: .25rem .5rem; vertical-align: top; text-align: left; overflow-wrap: break-word; }
 thead th { border-bottom: 2px solid var(--ink); font-weight: bold; }
 tr.warn td { background: var(--warn); }
 ul.plain { list-style: none; padding: 0; margin: 0; }

@@ -48,6 +48,14 @@ function column(matrix: FeatureMatrix, feature: string, cell: { order: number; d
 
 const valueOrNull = (v: number) => (Number.isFinite(v) ? v : null);
 
+/** Share of valid windows holding a tie at the recording's finest cell (smallest scale, delay and order). */
+function finestCellTiedShare(stage: FeatureStage, recording: string): number | null {
+  const rows = stage.quality.filter((q) => q.recording === recording && q.valid_windows > 0);
+  if (rows.length === 0) return null;
+  const finest = rows.reduce((a, b) => (b.scale < a.scale || (b.scale === a.scale && (b.delay < a.delay || (b.delay === a.delay && b.order < a.order))) ? b : a));
+  return valueOrNull(finest.tied_window_share);
+}
+
 interface MapInput {
   study: Study;
   stage: FeatureStage;
@@ -87,7 +95,7 @@ export function toReportInput({ study, stage, evaluation, univariate, subjects, 
       group: groupOf(info.recording.group === study.groups[1] ? 1 : 0),
       length: info.summary.length,
       missingShare: info.summary.length > 0 ? info.summary.missing / info.summary.length : null,
-      tiedShare: valueOrNull(info.summary.tiedShare),
+      tiedShare: finestCellTiedShare(stage, info.recording.id),
       warnings: stage.warnings.filter((w) => w.includes(`'${info.recording.id}'`)),
     })),
     warnings: [...stage.warnings, ...evaluation.notes].map((message) => ({ message })),
