@@ -2,7 +2,7 @@
  * A validated study: everything later stages need, with defaults filled in and paths resolved.
  */
 import type { FeatureName, Grid, ScaleForm, TieRule } from '../features/types.ts';
-import type { ClassifierName } from '../evaluate/types.ts';
+import type { EvaluationSettings } from '../evaluate/types.ts';
 
 export interface Recording {
   /** Unique recording id: the file name without its extensions, or manifest subject (+ #k for repeats). */
@@ -32,15 +32,8 @@ export interface FeatureSettings {
   minWindowsPerPattern: number;
 }
 
-export interface EvaluationOptions {
-  folds: number;
-  repeats: number;
-  permutations: number;
-  classifier: ClassifierName;
-  trees: number;
-  l2: number;
-  stopEarly: boolean;
-}
+/** The evaluation settings of a study: those of the evaluation stage, less the seed (derived from the study's). */
+export type EvaluationOptions = Omit<EvaluationSettings, 'seed'>;
 
 export interface Study {
   /** Absolute path of the study file. */
