@@ -10,11 +10,12 @@
  * Layout: nodes live in flat typed arrays shared by all trees of a forest ({@link NodeStore});
  * the two children of a node are stored next to each other, so only the left index is kept.
  * A node's rows are a contiguous segment of one Int32Array that is partitioned in place.
- * No object is allocated per node.
+ * A node's rows are put in the order of a column by bucketing them by rank
+ * ({@link RankBuckets}), not by sorting. No object is allocated per node or per tree.
  */
 import type { ColumnRanks } from './column-ranks.ts';
 import type { Rng } from '../../shared/random.ts';
-import { sortByInt32Key } from './sort-pairs.ts';
+import { RankBuckets } from './rank-buckets.ts';
 
 /** Settings of one tree, already validated and resolved against the table's width. */
 export interface TreeSettings {
@@ -67,12 +68,13 @@ const STACK_SLOTS = 6; // node, start, end, depth, weight of class 0, weight of 
 export class TreeGrower {
   private readonly nRows: number;
   private readonly nCols: number;
+  /** Bootstrap draws of each row (0 for rows left out). */
   private readonly weight: Int32Array;
+  /** Draws of each row that count for class 1: weight[i] · y[i]. */
+  private readonly weight1: Int32Array;
+  /** In-bag rows; each node owns a contiguous segment. */
   private readonly samples: Int32Array;
-  /** Node that each in-bag row currently belongs to; -1 for rows left out of the bootstrap. */
-  private readonly nodeOf: Int32Array;
-  private readonly sortedRank: Int32Array;
-  private readonly sortedSample: Int32Array;
+  private readonly buckets: RankBuckets;
   private readonly pool: Int32Array;
   private readonly stack: Int32Array;
   // Result of the last split search (fields, so that the hot path allocates nothing).
@@ -92,10 +94,9 @@ export class TreeGrower {
     this.nRows = ranks.nRows;
     this.nCols = ranks.nCols;
     this.weight = new Int32Array(this.nRows);
+    this.weight1 = new Int32Array(this.nRows);
     this.samples = new Int32Array(this.nRows);
-    this.nodeOf = new Int32Array(this.nRows);
-    this.sortedRank = new Int32Array(this.nRows);
-    this.sortedSample = new Int32Array(this.nRows);
+    this.buckets = new RankBuckets(this.nRows);
     this.pool = new Int32Array(this.nCols);
     for (let c = 0; c < this.nCols; c++) this.pool[c] = c;
     this.stack = new Int32Array(STACK_SLOTS * (this.nRows + 2));
@@ -104,11 +105,12 @@ export class TreeGrower {
   /**
    * Grows one tree into `store` with randomness from `rng` (bootstrap draws first, then the
    * column draws of each split, depth first, left child before right). Returns the root's
-   * index. Complexity about O(maxFeatures · n log² n) for a balanced tree on n rows.
+   * index. Complexity O(maxFeatures · (m + n / 32)) per node of m rows, about
+   * O(maxFeatures · n log n) for a balanced tree on n rows.
    */
   grow(rng: Rng, store: NodeStore): number {
     const n = this.nRows;
-    const { weight, samples, nodeOf, y, stack } = this;
+    const { weight, weight1, samples, y, stack } = this;
     this.drawWeights(rng);
     const root = store.size;
     let m = 0;
@@ -116,11 +118,12 @@ export class TreeGrower {
     let w1 = 0;
     for (let i = 0; i < n; i++) {
       const w = weight[i];
-      nodeOf[i] = w === 0 ? -1 : root;
+      const w1i = y[i] === 1 ? w : 0;
+      weight1[i] = w1i;
       if (w === 0) continue;
       samples[m++] = i;
-      if (y[i] === 1) w1 += w;
-      else w0 += w;
+      w1 += w1i;
+      w0 += w - w1i;
     }
     store.reserve(2 * m - 1); // a binary tree with at most m leaves has at most 2m - 1 nodes
     store.size++;
@@ -134,14 +137,14 @@ export class TreeGrower {
       const depth = stack[top + 3];
       const c0 = stack[top + 4];
       const c1 = stack[top + 5];
-      if (!this.shouldTrySplit(depth, c0, c1) || !this.findBestSplit(rng, node, start, end, c0, c1)) {
+      if (!this.shouldTrySplit(depth, c0, c1) || !this.findBestSplit(rng, start, end, c0, c1)) {
         store.feature[node] = -1;
         store.value[node] = c1 / (c0 + c1);
         continue;
       }
       const f = this.bestFeature;
       const left = store.size;
-      const mid = this.partition(start, end, f, this.bestRankLeft, left);
+      const mid = this.partition(start, end, f, this.bestRankLeft);
       store.size += 2;
       store.feature[node] = f;
       store.left[node] = left;
@@ -173,44 +176,49 @@ export class TreeGrower {
    * without replacement until `maxFeatures` columns that are not constant in the node have
    * been searched, or none is left (constant columns do not count, as in scikit-learn's
    * BestSplitter [M]). Zero-gain splits are allowed (an XOR needs one to start); among equal
-   * splits the first found wins (columns in draw order, thresholds ascending).
+   * splits the first found wins (columns in draw order, thresholds ascending). The search
+   * stops early at a split into two pure children: no later column can beat it (its score
+   * num / den equals the node's weight, the largest possible), so the tree is the one the
+   * full search would grow; only fewer column draws are taken from the stream.
    * Returns false when no column admits a split with both children >= minLeaf.
    */
-  private findBestSplit(rng: Rng, node: number, start: number, end: number, c0: number, c1: number): boolean {
+  private findBestSplit(rng: Rng, start: number, end: number, c0: number, c1: number): boolean {
     const { pool } = this;
-    const m = end - start;
-    const small = m * m <= 4 * this.nRows;
     this.bestNumerator = -1;
     this.bestDenominator = 1;
     this.bestFeature = -1;
+    const total = c0 + c1;
     let remaining = this.nCols;
     let searched = 0;
-    while (remaining > 0 && searched < this.settings.maxFeatures) {
+    while (remaining > 0 && searched < this.settings.maxFeatures && this.bestNumerator !== total * this.bestDenominator) {
       const j = rng.int(remaining);
       const f = pool[j];
       remaining--;
       pool[j] = pool[remaining];
       pool[remaining] = f;
-      if (small) this.sortNodeBy(f, start, end);
-      else this.gatherNodeInOrder(f, node);
-      if (this.scanSorted(f, m, c0, c1)) searched++;
+      if (this.scanColumn(f, start, end, c0, c1)) searched++;
     }
     return this.bestFeature >= 0;
   }
 
   /**
-   * Scans the node's rows sorted by their rank in column f (sortedRank, sortedSample) for
-   * the best threshold, and keeps it if it beats the best so far. Returns false when the
-   * column is constant in the node.
+   * Scans the node's rows in the order of column f for the best threshold, and keeps it if
+   * it beats the best so far. Returns false when the column is constant in the node.
+   *
+   * The rows are bucketed by their rank in column f; the buckets come back in ascending
+   * rank, each with its total weight and class-1 weight, so that rows sharing a value
+   * (ties) fall into one bucket and candidates lie only between distinct values.
    *
    * Minimising the children's weighted Gini impurity, Σ_child w_child (1 − Σ_k p_k²), is
    * maximising Σ_child Σ_k w_k² / w_child = num / den with num = (l0² + l1²) nr +
    * (r0² + r1²) nl and den = nl nr. Weights are whole numbers, so candidates are compared
    * as num · bestDen > bestNum · den, exactly for totals up to about 1,500 rows.
    */
-  private scanSorted(f: number, m: number, c0: number, c1: number): boolean {
-    const { sortedRank, sortedSample, weight, y } = this;
-    if (m < 2 || sortedRank[0] === sortedRank[m - 1]) return false;
+  private scanColumn(f: number, start: number, end: number, c0: number, c1: number): boolean {
+    const buckets = this.buckets;
+    const { bucketRank, bucketWeight, bucketWeight1 } = buckets;
+    const distinct = buckets.fill(this.ranks.rank, f * this.nRows, this.samples, start, end, this.weight, this.weight1);
+    if (distinct < 2) return false;
     const minLeaf = this.settings.minLeaf;
     const total = c0 + c1;
     let bestNum = this.bestNumerator;
@@ -220,12 +228,9 @@ export class TreeGrower {
     let foundLeft1 = 0;
     let nl = 0;
     let l1 = 0;
-    for (let k = 0; k < m - 1; k++) {
-      const s = sortedSample[k];
-      const w = weight[s];
-      nl += w;
-      l1 += w * y[s];
-      if (sortedRank[k] === sortedRank[k + 1]) continue;
+    for (let k = 0; k < distinct - 1; k++) {
+      nl += bucketWeight[k];
+      l1 += bucketWeight1[k];
       const nr = total - nl;
       if (nl < minLeaf || nr < minLeaf) continue;
       const l0 = nl - l1;
@@ -245,53 +250,17 @@ export class TreeGrower {
       this.bestNumerator = bestNum;
       this.bestDenominator = bestDen;
       this.bestFeature = f;
-      this.bestRankLeft = sortedRank[found];
-      this.bestRankRight = sortedRank[found + 1];
+      this.bestRankLeft = bucketRank[found];
+      this.bestRankRight = bucketRank[found + 1];
       this.bestLeft0 = foundLeft - foundLeft1;
       this.bestLeft1 = foundLeft1;
     }
     return true;
   }
 
-  /**
-   * Fills the sorted buffers for a large node by walking column f's presorted order and
-   * keeping the rows of this node, O(n) and branch-free (the write always happens, the
-   * count only moves for members).
-   */
-  private gatherNodeInOrder(f: number, node: number): void {
-    const { nodeOf, sortedRank, sortedSample } = this;
-    const { order, rankInOrder } = this.ranks;
-    const from = f * this.nRows;
-    const to = from + this.nRows;
-    let count = 0;
-    for (let k = from; k < to; k++) {
-      const s = order[k];
-      sortedSample[count] = s;
-      sortedRank[count] = rankInOrder[k];
-      count += nodeOf[s] === node ? 1 : 0;
-    }
-  }
-
-  /** Copies the node's rows with their ranks in column f into the sorted buffers, ascending. */
-  private sortNodeBy(f: number, start: number, end: number): void {
-    const { samples, sortedRank, sortedSample } = this;
-    const rank = this.ranks.rank;
-    const offset = f * this.nRows;
-    const m = end - start;
-    for (let k = 0; k < m; k++) {
-      const s = samples[start + k];
-      sortedSample[k] = s;
-      sortedRank[k] = rank[offset + s];
-    }
-    sortByInt32Key(sortedRank, sortedSample, 0, m - 1);
-  }
-
-  /**
-   * Moves rows with rank <= rankLeft in column f to the front of the segment, relabels them
-   * as node `left` and the others as `left + 1`; returns the split point.
-   */
-  private partition(start: number, end: number, f: number, rankLeft: number, left: number): number {
-    const { samples, nodeOf } = this;
+  /** Moves rows with rank <= rankLeft in column f to the front of the segment; returns the split point. */
+  private partition(start: number, end: number, f: number, rankLeft: number): number {
+    const { samples } = this;
     const rank = this.ranks.rank;
     const offset = f * this.nRows;
     let i = start;
@@ -305,8 +274,6 @@ export class TreeGrower {
         j--;
       }
     }
-    for (let k = start; k < i; k++) nodeOf[samples[k]] = left;
-    for (let k = i; k < end; k++) nodeOf[samples[k]] = left + 1;
     return i;
   }
 
