@@ -19,6 +19,7 @@ import type { GridCell } from './grid-scan.ts';
 import { importanceByCell, importanceByFeature, permutationImportance } from './importance.ts';
 import { classificationMetrics } from './metrics.ts';
 import { runPermutationTest } from './permutation.ts';
+import type { PermutationRun } from './permutation.ts';
 import { rocCurve } from './roc.ts';
 import type { PermutablePipeline } from './permutation.ts';
 import type { EvaluationResult } from './result.ts';
@@ -74,10 +75,59 @@ export function evaluateWithClassifier(
   classifier: Classifier,
   onProgress?: ProgressCallback,
 ): EvaluationResult {
+  const observed = observeStudy(matrix, settings, classifier, onProgress);
+  const run = runPermutationTest(observed.study.pipeline, observed.statistics, settings.permutations, stopAfterOf(settings), (done, total) =>
+    onProgress?.('permutations', done, total),
+  );
+  return concludeEvaluation(matrix, observed, run, onProgress);
+}
+
+/**
+ * Runs the permutations of a prepared study: must return what runPermutationTest(study.pipeline,
+ * observed, B, stopAfter) returns (a worker pool computes the same permutations k elsewhere).
+ */
+export type PermutationStage = (
+  study: PreparedStudy,
+  observed: Float64Array,
+  B: number,
+  stopAfter: number | null,
+  onEach: (done: number, total: number) => void,
+) => Promise<PermutationRun>;
+
+/**
+ * evaluateStudy with the permutation stage handed to `permute` (e.g. a worker pool); every
+ * other step runs here. Gives the same result as {@link evaluateStudy} when `permute` keeps
+ * its contract. Same errors.
+ */
+export async function evaluateStudyWith(
+  matrix: FeatureMatrix,
+  settings: EvaluationSettings,
+  permute: PermutationStage,
+  onProgress?: ProgressCallback,
+): Promise<EvaluationResult> {
+  const observed = observeStudy(matrix, settings, classifierFor(settings), onProgress);
+  const run = await permute(observed.study, observed.statistics, settings.permutations, stopAfterOf(settings), (done, total) =>
+    onProgress?.('permutations', done, total),
+  );
+  return concludeEvaluation(matrix, observed, run, onProgress);
+}
+
+const stopAfterOf = (settings: EvaluationSettings): number | null => (settings.stopEarly ? STOP_AFTER_EXCEEDANCES : null);
+
+/** The prepared study and its observed scores (headline CV and one CV per grid cell). */
+interface ObservedStudy {
+  study: PreparedStudy;
+  observedFolds: ReturnType<typeof repeatedSubjectFolds>;
+  headlineCv: CrossValidation;
+  observedCells: Float64Array;
+  /** The statistics vector of the observed labels (see PreparedStudy.pipeline). */
+  statistics: Float64Array;
+}
+
+function observeStudy(matrix: FeatureMatrix, settings: EvaluationSettings, classifier: Classifier, onProgress?: ProgressCallback): ObservedStudy {
   const study = prepareStudy(matrix, settings, classifier);
-  const { design, subjects, cells, pipeline } = study;
-  const nCells = cells.length;
-  const gridScanned = nCells >= 2;
+  const { design, subjects, cells } = study;
+  const gridScanned = cells.length >= 2;
 
   onProgress?.('cross-validation', 0, 1);
   const observedFolds = repeatedSubjectFolds(subjects.labels, settings.folds, settings.repeats, settings.seed);
@@ -85,12 +135,15 @@ export function evaluateWithClassifier(
   const observedCells = gridScanned
     ? cellScores(design, cells, subjects.labels, observedFolds, settings.folds, classifier, settings.seed)
     : Float64Array.of(headlineCv.score);
-  const observed = Float64Array.of(headlineCv.score, ...(gridScanned ? observedCells : []));
+  const statistics = Float64Array.of(headlineCv.score, ...(gridScanned ? observedCells : []));
   onProgress?.('cross-validation', 1, 1);
+  return { study, observedFolds, headlineCv, observedCells, statistics };
+}
 
-  const run = runPermutationTest(pipeline, observed, settings.permutations, settings.stopEarly ? STOP_AFTER_EXCEEDANCES : null, (done, total) =>
-    onProgress?.('permutations', done, total),
-  );
+function concludeEvaluation(matrix: FeatureMatrix, observed: ObservedStudy, run: PermutationRun, onProgress?: ProgressCallback): EvaluationResult {
+  const { study, observedFolds, headlineCv, observedCells } = observed;
+  const { design, subjects, cells, settings, classifier } = study;
+  const gridScanned = cells.length >= 2;
   const B = run.nullStatistics.length;
   const nullCells = run.nullStatistics.map((s) => (gridScanned ? s.subarray(1) : s.subarray(0, 1)));
   const rawP = rawCellPValues(observedCells, nullCells);
