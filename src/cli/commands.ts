@@ -43,7 +43,29 @@ const FORCE: OptionSpec = {
   type: 'boolean',
   description: 'start even when check estimates the run as unreasonably long or the grid as unsupported by the recordings',
 };
-const QUIET: OptionSpec = { name: 'quiet', short: 'q', type: 'boolean', description: 'print only errors and the final summary' };
+const QUIET: OptionSpec = { name: 'quiet', short: 'q', type: 'boolean', description: 'print only errors and the final summary (no progress)' };
+const JOBS: OptionSpec = {
+  name: 'jobs',
+  short: 'j',
+  type: 'string',
+  value: 'N',
+  description: 'worker threads for features and permutations; results are identical for any N',
+  default: 'the number of cores',
+};
+const CACHE: OptionSpec = {
+  name: 'cache',
+  type: 'string',
+  value: 'DIR',
+  description: 'feature cache folder (reruns compute only cells not in it)',
+  default: '.patternfold-cache beside the study file',
+};
+const NO_CACHE: OptionSpec = { name: 'no-cache', type: 'boolean', description: 'neither read nor write the feature cache' };
+const SHARD: OptionSpec = {
+  name: 'shard',
+  type: 'string',
+  value: 'K/N',
+  description: 'compute only part K of N of the (recording x cell) work into the cache, write no output folder (for clusters)',
+};
 
 export const COMMANDS: CommandSpec[] = [
   {
@@ -68,15 +90,40 @@ export const COMMANDS: CommandSpec[] = [
     name: 'features',
     summary: 'compute the feature table only (features.csv, quality.csv, results.json)',
     positionals: [{ name: 'STUDY', required: true, description: 'the study file (YAML)' }],
-    options: [OUT, SET, QUIET, HELP],
-    examples: ['patternfold features studies/demo.yaml --out reports/demo-features'],
+    options: [OUT, SET, JOBS, CACHE, NO_CACHE, SHARD, QUIET, HELP],
+    examples: [
+      'patternfold features studies/demo.yaml --out reports/demo-features',
+      'patternfold features studies/demo.yaml --shard 3/8 --cache /shared/pf-cache   # one of eight cluster jobs',
+    ],
   },
   {
     name: 'run',
     summary: 'run the whole study: features, statistics, report',
     positionals: [{ name: 'STUDY', required: true, description: 'the study file (YAML)' }],
-    options: [OUT, SET, QUIET, FORCE, HELP],
+    options: [OUT, SET, JOBS, CACHE, NO_CACHE, QUIET, FORCE, HELP],
     examples: ['patternfold run studies/demo.yaml --out reports/demo', 'patternfold run studies/demo.yaml --set grid.scale=1,2,8 --set evaluation.permutations=199'],
+  },
+  {
+    name: 'compare',
+    summary: 'show what changed between two runs: settings, inputs, headline and per-cell results',
+    positionals: [
+      { name: 'RUN_A', required: true, description: 'the earlier run folder (or its results.json)' },
+      { name: 'RUN_B', required: true, description: 'the later run folder (or its results.json)' },
+    ],
+    options: [HELP],
+    examples: ['patternfold compare reports/demo/20261201-101500Z-1a2b3c4d reports/demo/20261202-091000Z-5e6f7a8b'],
+  },
+  {
+    name: 'cache',
+    summary: 'show the size of the feature cache, prune old entries or clear it',
+    positionals: [{ name: 'STUDY', required: false, description: 'a study file, to use the cache beside it' }],
+    options: [
+      { name: 'cache', type: 'string', value: 'DIR', description: 'the cache folder', default: '.patternfold-cache beside STUDY, else in the current folder' },
+      { name: 'prune-older-than', type: 'string', value: 'DAYS', description: 'remove entries not used in the last DAYS days' },
+      { name: 'clear', type: 'boolean', description: 'remove every entry' },
+      HELP,
+    ],
+    examples: ['patternfold cache studies/demo.yaml', 'patternfold cache --cache /shared/pf-cache --prune-older-than 30'],
   },
   {
     name: 'schema',

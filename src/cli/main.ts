@@ -6,19 +6,25 @@ import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { InputError } from '../shared/errors.ts';
 import { loadStudy, STUDY_SCHEMA, studyTemplate, type Study } from '../study/index.ts';
-import { abandonActiveStaging, checkStudy, runStudy, sha256Text, TOOL_VERSION, type RunOutcome } from '../run/index.ts';
+import { abandonActiveStaging, checkStudy, runStudy, TOOL_VERSION, type RunOutcome } from '../run/index.ts';
 import { commandHelp, mainHelp } from './help.ts';
 import { findCommand, parseCommand, type ParsedCommand } from './parse.ts';
 import { formatTable, processIo, safeText, type Io } from './terminal.ts';
+import { cacheFolderOf, runCacheCommand } from './cache-command.ts';
+import { runCompareCommand } from './compare-command.ts';
+import { createProgress } from './progress.ts';
+import { claimRunFolder, releaseRunFolder, runFolderBase } from '../run/run-folder.ts';
+import { parseJobs } from '../run/worker-pool.ts';
+import { computeShard, parseShard } from '../run/shard.ts';
+import { IN_THREAD } from '../run/feature-work.ts';
+import { lazyPool } from '../run/worker-pool.ts';
+import { featureWorkIsLarge } from '../run/work-size.ts';
 
 const percent = (x: number) => (Number.isFinite(x) ? `${(100 * x).toFixed(1)}%` : '-');
 
 /** Default output folder of a run: reports/<study name>/<UTC time>-<study hash>. */
 export function defaultOutFolder(study: Study, now: Date): string {
-  const slug = study.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'study';
-  const stamp = now.toISOString().replace(/[-:]/g, '').replace(/\.\d+Z$/, 'Z').replace('T', '-');
-  const hash = sha256Text(study.text + '\n' + study.overrides.join('\n')).slice(0, 8);
-  return `reports/${slug}/${stamp}-${hash}`;
+  return runFolderBase(study, now);
 }
 
 function loadFromArgs(cmd: ParsedCommand): Study {
@@ -59,19 +65,57 @@ async function runCheck(cmd: ParsedCommand, io: Io): Promise<number> {
   return 0;
 }
 
+/** Progress on stderr unless --quiet: a bar on a terminal, plain lines otherwise. */
+function progressFor(cmd: ParsedCommand, io: Io) {
+  if (cmd.values.quiet) return { onProgress: undefined, end: () => undefined };
+  return createProgress({ write: io.errRaw ?? ((t) => io.err(t.replace(/\n$/, ''))), isTTY: io.errIsTTY ?? false, columns: io.errColumns });
+}
+
+/** `features --shard K/N`: one part of the feature work into the cache, no output folder. */
+async function runShard(cmd: ParsedCommand, io: Io, study: Study, cacheDir: string | null): Promise<number> {
+  const shard = parseShard(String(cmd.values.shard));
+  const jobs = parseJobs(cmd.values.jobs as string | undefined);
+  const pools = lazyPool(jobs);
+  const pool = pools.get(cmd.values.jobs !== undefined || featureWorkIsLarge(study));
+  const progress = progressFor(cmd, io);
+  try {
+    const r = await computeShard(study, shard, { ...IN_THREAD, cacheDir, pool }, (done, total) => progress.onProgress?.('features', done, total));
+    progress.end();
+    for (const w of r.warnings) io.err(`warning: ${safeText(w)}`);
+    io.out(`shard ${shard.index}/${shard.count}: ${r.units} (recording x cell) unit(s) over ${r.recordings} recording(s): ${r.computed} computed, ${r.cached} already cached, in ${safeText(cacheDir ?? '')}`);
+  } finally {
+    await pools.close();
+  }
+  return 0;
+}
+
 async function runPipeline(cmd: ParsedCommand, io: Io, stage: 'features' | 'all', argv: string[]): Promise<number> {
   const study = loadFromArgs(cmd);
-  const out = (cmd.values.out as string | undefined) ?? defaultOutFolder(study, new Date());
+  const cacheDir = cmd.values['no-cache'] ? null : cacheFolderOf(cmd.values.cache as string | undefined, study.file);
+  if (cmd.values.shard !== undefined) return runShard(cmd, io, study, cacheDir);
+  const jobs = parseJobs(cmd.values.jobs as string | undefined);
+  const given = cmd.values.out as string | undefined;
+  const out = given ?? claimRunFolder(defaultOutFolder(study, new Date()));
   const quiet = Boolean(cmd.values.quiet);
-  const outcome: RunOutcome = await runStudy(study, {
-    out,
-    stage,
-    force: Boolean(cmd.values.force),
-    commandLine: ['patternfold', ...argv].join(' '),
-    onProgress: quiet ? undefined : (name, done, total) => {
-      if (done === total || done % 10 === 0) io.err(`${name}: ${done}/${total}`);
-    },
-  });
+  const progress = progressFor(cmd, io);
+  let outcome: RunOutcome;
+  try {
+    outcome = await runStudy(study, {
+      out,
+      stage,
+      force: Boolean(cmd.values.force),
+      commandLine: ['patternfold', ...argv].join(' '),
+      jobs,
+      poolOnlyWhenLarge: cmd.values.jobs === undefined,
+      cacheDir,
+      onProgress: progress.onProgress,
+    });
+  } catch (e) {
+    if (given === undefined) releaseRunFolder(out);
+    throw e;
+  } finally {
+    progress.end();
+  }
   if (!quiet && outcome.warnings.length > 0) io.err(`${outcome.warnings.length} warning(s):\n` + outcome.warnings.map((w) => `  - ${safeText(w)}`).join('\n'));
   io.out(`wrote ${outcome.files.map((f) => safeText(`${out}/${f}`)).join(', ')}`);
   if (outcome.keyFile) io.out(`pseudonym key (keep it private; it is not in the report folder): ${safeText(outcome.keyFile)}`);
@@ -113,6 +157,10 @@ async function dispatch(argv: string[], io: Io): Promise<number> {
       return runPipeline(cmd, io, 'all', argv);
     case 'schema':
       return runSchema(cmd, io);
+    case 'compare':
+      return runCompareCommand(cmd, io);
+    case 'cache':
+      return runCacheCommand(cmd, io);
     default:
       throw new Error(`command ${cmd.spec.name} is declared but has no handler`);
   }

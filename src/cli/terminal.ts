@@ -19,9 +19,18 @@ export function formatTable(rows: string[][]): string {
 export interface Io {
   out(text: string): void;
   err(text: string): void;
+  /** Writes to stderr as given, no newline added (progress bars); absent: progress uses err(). */
+  errRaw?(text: string): void;
+  /** Whether stderr is a terminal (progress draws a bar only then). */
+  errIsTTY?: boolean;
+  /** Width of the terminal on stderr, in columns. */
+  errColumns?: number;
 }
 
 export const processIo: Io = {
   out: (text) => void process.stdout.write(text.endsWith('\n') ? text : text + '\n'),
   err: (text) => void process.stderr.write(text.endsWith('\n') ? text : text + '\n'),
+  errRaw: (text) => void process.stderr.write(text),
+  errIsTTY: Boolean(process.stderr.isTTY),
+  errColumns: process.stderr.columns,
 };

@@ -6,3 +6,9 @@ export { stageFolder, abandonActiveStaging, writeFileAtomic, type StagedFolder }
 export { estimateStatisticsCost, resourceConcerns, formatDuration, MAX_SENSIBLE_SECONDS } from './cost.ts';
 export { sha256File, sha256Text } from './hash.ts';
 export { TOOL_VERSION } from './version.ts';
+export { openFeatureCache, summariseCache, pruneCache, clearCache, cacheKey, type FeatureCache, type CacheSummary } from './feature-cache.ts';
+export { compareRuns, readRunRecord, type RunComparison } from './compare-runs.ts';
+export { computeShard, parseShard, shardItems, type Shard, type ShardOutcome } from './shard.ts';
+export { createWorkPool, lazyPool, parseJobs, defaultJobs, type WorkPool } from './worker-pool.ts';
+export { claimRunFolder, runFolderBase } from './run-folder.ts';
+export { computeRecordings, type FeatureWork } from './feature-work.ts';

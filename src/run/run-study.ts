@@ -4,8 +4,14 @@
  * flow; `stage: 'features'` stops after features.csv and quality.csv.
  */
 import type { Study } from '../study/index.ts';
-import { featureRows, featuresOfSeries, flaggedCellNotes, qualityRows, type FeatureRow, type QualityRow } from './feature-table.ts';
-import { forEachRecording, type RecordingInfo } from './read-cohort.ts';
+import { featureRows, flaggedCellNotes, qualityRows, type FeatureRow, type QualityRow } from './feature-table.ts';
+import type { RecordingInfo } from './read-cohort.ts';
+import { computeRecordings, IN_THREAD, type FeatureWork } from './feature-work.ts';
+import { lazyPool, type LazyPool, type WorkPool } from './worker-pool.ts';
+import { featureWorkIsLarge, permutationWorkIsLarge } from './work-size.ts';
+import { pooledPermutationStage } from './pooled-permutations.ts';
+import { evaluateStudyWith } from '../evaluate/evaluate.ts';
+import type { Cell } from '../features/index.ts';
 import { studyWarnings } from './warnings.ts';
 import { toArrowBytes, toCsvText } from './csv.ts';
 import { compareGroups, evaluateStudy, type EvaluationResult, type FeatureMatrix, type UnivariateRow } from '../evaluate/index.ts';
@@ -30,6 +36,14 @@ export interface RunOptions {
   commandLine: string;
   /** Progress callback: stage name, done, total. */
   onProgress?: (stage: string, done: number, total: number) => void;
+  /** Worker threads for features and permutations (default 1: this thread only). Results do not depend on it. */
+  jobs?: number;
+  /** With `jobs` > 1: run small stages in this thread anyway (src/run/work-size.ts); default false (always use the threads). */
+  poolOnlyWhenLarge?: boolean;
+  /** Feature cache folder (default null: no cache). */
+  cacheDir?: string | null;
+  /** Called per recording with the cells computed rather than taken from the cache (for tests and counts). */
+  onComputed?: (recordingId: string, cells: Cell[]) => void;
 }
 
 /** What a finished run hands back to the command line. */
@@ -52,23 +66,20 @@ export interface FeatureStage {
   warnings: string[];
 }
 
-/** Reads every recording and computes its features over the grid, one recording at a time. */
-export async function computeFeatureStage(study: Study, onProgress?: RunOptions['onProgress']): Promise<FeatureStage> {
-  const reduced = await forEachRecording(
-    study,
-    (series, info) => {
-      const cells = featuresOfSeries(study, series, info.recording.id);
-      return { rows: featureRows(study, info, cells), quality: qualityRows(info, cells) };
-    },
-    (done, total) => onProgress?.('features', done, total),
-  );
+/**
+ * Reads every recording and computes its features over the grid (one recording at a time per
+ * thread), taking cells from the feature cache when `work` names one. Results in study order.
+ */
+export async function computeFeatureStage(study: Study, onProgress?: RunOptions['onProgress'], work: FeatureWork = IN_THREAD): Promise<FeatureStage> {
+  const reduced = await computeRecordings(study, work, (done, total) => onProgress?.('features', done, total));
   const infos = reduced.map((r) => r.info);
-  const quality = reduced.flatMap((r) => r.value.quality);
+  const quality = reduced.flatMap((r) => qualityRows(r.info, r.outcome.cells));
+  const cacheWarnings = [...new Set(reduced.flatMap((r) => r.outcome.warnings))];
   return {
     infos,
-    rows: reduced.flatMap((r) => r.value.rows),
+    rows: reduced.flatMap((r) => featureRows(study, r.info, r.outcome.cells)),
     quality,
-    warnings: [...study.notes, ...studyWarnings(study, infos), ...flaggedCellNotes(quality, infos.length)],
+    warnings: [...study.notes, ...studyWarnings(study, infos), ...flaggedCellNotes(quality, infos.length), ...cacheWarnings],
   };
 }
 
@@ -98,10 +109,13 @@ interface StatisticsStage {
   recordings: FeatureMatrix;
 }
 
-function computeStatistics(study: Study, stage: FeatureStage, onProgress?: RunOptions['onProgress']): StatisticsStage {
+async function computeStatistics(study: Study, stage: FeatureStage, pool: WorkPool | null, onProgress?: RunOptions['onProgress']): Promise<StatisticsStage> {
   const recordings = recordingMatrix(study, stage.rows);
   const subjects = subjectMatrix(recordings);
-  const evaluation = evaluateStudy(recordings, { ...study.evaluation, seed: deriveSeed(study.seed, 'evaluation') }, onProgress);
+  const settings = { ...study.evaluation, seed: deriveSeed(study.seed, 'evaluation') };
+  const evaluation = pool
+    ? await evaluateStudyWith(recordings, settings, pooledPermutationStage(pool, recordings, settings), onProgress)
+    : evaluateStudy(recordings, settings, onProgress);
   return { evaluation, univariate: compareGroups(subjects), subjects, recordings };
 }
 
@@ -118,7 +132,18 @@ export async function runStudy(original: Study, given: RunOptions): Promise<RunO
   const pseudonyms = original.report.pseudonyms ? pseudonymiseStudy(original) : null;
   const study = pseudonyms?.study ?? original;
   if (options.stage === 'all' && !options.force) refuseUnreasonable(study, []);
-  const stage = await computeFeatureStage(study, options.onProgress);
+  const pools = lazyPool(options.jobs ?? 1);
+  try {
+    return await runWithPool(study, options, started, pseudonyms?.key ?? null, pools);
+  } finally {
+    await pools.close();
+  }
+}
+
+async function runWithPool(study: Study, options: RunOptions, started: Date, pseudonymKey: PseudonymKeyRow[] | null, pools: LazyPool): Promise<RunOutcome> {
+  const always = !options.poolOnlyWhenLarge;
+  const work: FeatureWork = { cacheDir: options.cacheDir ?? null, pool: pools.get(always || featureWorkIsLarge(study)), onComputed: options.onComputed };
+  const stage = await computeFeatureStage(study, options.onProgress, work);
   if (options.stage === 'all' && !options.force) refuseUnreasonable(study, stage.infos.map((i) => i.summary.length));
   const files: [string, string | Uint8Array][] = [
     ['features.csv', toCsvText(stage.rows, FEATURE_COLUMNS)],
@@ -126,7 +151,7 @@ export async function runStudy(original: Study, given: RunOptions): Promise<RunO
   ];
   let statistics: StatisticsStage | null = null;
   if (options.stage === 'all') {
-    statistics = computeStatistics(study, stage, options.onProgress);
+    statistics = await computeStatistics(study, stage, pools.get(always || permutationWorkIsLarge(study)), options.onProgress);
     files.push(
       ['features-wide.csv', toCsvText(wideRows(statistics.recordings))],
       ['univariate.csv', toCsvText(statistics.univariate.map(flattenUnivariate))],
@@ -167,7 +192,7 @@ export async function runStudy(original: Study, given: RunOptions): Promise<RunO
     folder.abandon();
     throw e;
   }
-  const keyFile = pseudonyms ? writePseudonymKey(options.out, pseudonyms.key) : null;
+  const keyFile = pseudonymKey ? writePseudonymKey(options.out, pseudonymKey) : null;
   return { out: options.out, files: files.map(([name]) => name), warnings: stage.warnings, results, keyFile };
 }
 

@@ -1,0 +1,74 @@
+/**
+ * The permutation stage spread over a worker pool. Permutation k's labels and fit seeds come
+ * from (seed, k) alone (src/evaluate/permutation.ts), so computing ranges of k in any thread
+ * and in any order, then reading them in index order, gives the same null distribution,
+ * the same sequential stop and the same p-values as one thread.
+ */
+import type { PermutationStage } from '../evaluate/evaluate.ts';
+import { runPermutationTest, type PermutablePipeline } from '../evaluate/permutation.ts';
+import type { EvaluationSettings, FeatureMatrix } from '../evaluate/index.ts';
+import { randomBytes } from 'node:crypto';
+import type { WorkPool } from './worker-pool.ts';
+
+/**
+ * Ranges [from, to) that split 0..B-1 into about `chunksPerThread` pieces per thread, in order.
+ * Example: permutationRanges(10, 2, 2) -> [0,3) [3,6) [6,9) [9,10).
+ */
+export function permutationRanges(B: number, threads: number, chunksPerThread = 4): [number, number][] {
+  const size = Math.max(1, Math.ceil(B / (threads * chunksPerThread)));
+  const ranges: [number, number][] = [];
+  for (let from = 0; from < B; from += size) ranges.push([from, Math.min(B, from + size)]);
+  return ranges;
+}
+
+/**
+ * A PermutationStage for evaluateStudyWith that computes the permutations in `pool`; `matrix`
+ * and `settings` are the inputs the study was prepared from (each thread prepares its own).
+ * Under sequential stopping, ranges are read in index order and the rest are cancelled once
+ * the stopping rule is met. The outcome is what runPermutationTest gives in one thread: the
+ * statistics computed are replayed through it in index order.
+ */
+export function pooledPermutationStage(pool: WorkPool, matrix: FeatureMatrix, settings: EvaluationSettings): PermutationStage {
+  return async (study, observed, B, stopAfter, onEach) => {
+    const studyId = randomBytes(8).toString('hex');
+    const ranges = permutationRanges(B, pool.threads);
+    const abort = new AbortController();
+    let done = 0;
+    const pending = ranges.map(([from, to]) =>
+      pool.permutations({ studyId, matrix, settings, from, to }, abort.signal).then((stats) => {
+        done += stats.length;
+        onEach(done, B);
+        return stats;
+      }),
+    );
+    pending.forEach((p) => p.catch(() => undefined)); // cancelled ranges reject; their results are not needed
+    const computed: Float64Array[] = [];
+    let exceedances = 0;
+    try {
+      for (const p of pending) {
+        for (const s of await p) {
+          computed.push(s);
+          if (!(s[0] < observed[0])) exceedances++;
+          if (stopAfter !== null && exceedances >= stopAfter && computed.length < B) return replay(study.pipeline, observed, computed, B, stopAfter);
+        }
+      }
+    } finally {
+      abort.abort();
+    }
+    return replay(study.pipeline, observed, computed, B, stopAfter);
+  };
+}
+
+/** runPermutationTest over statistics already computed, in index order. */
+function replay(pipeline: PermutablePipeline, observed: Float64Array, computed: Float64Array[], B: number, stopAfter: number | null) {
+  let k = 0;
+  const recorded: PermutablePipeline = {
+    subjectLabels: pipeline.subjectLabels,
+    seed: pipeline.seed,
+    statistics: () => {
+      if (k >= computed.length) throw new Error(`permutation ${k} was not computed by the pool`);
+      return computed[k++];
+    },
+  };
+  return runPermutationTest(recorded, observed, B, stopAfter);
+}

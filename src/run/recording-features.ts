@@ -1,0 +1,132 @@
+/**
+ * The unit of feature work: one recording, a list of grid cells, and the cache. Plain data
+ * in and out, so that it runs the same in the main thread and in a worker thread.
+ */
+import { computeGridFeatures, FEATURE_DEFINITIONS_VERSION, type Cell, type CellFeatures, type FeatureOptions } from '../features/index.ts';
+import { describeSeries, readSeries, type SeriesSummary, type SignalFormat } from '../signals/index.ts';
+import type { SignalSettings } from '../study/index.ts';
+import { cacheKey, openFeatureCache, type FeatureCache } from './feature-cache.ts';
+import { cellId, gridsCovering } from './cell-groups.ts';
+import { sha256File } from './hash.ts';
+
+/** What is learnt about a recording when it is read (cached per file content and selection). */
+export interface RecordingFacts {
+  sha256: string;
+  format: SignalFormat;
+  channel: string;
+  sampleRate: number | null;
+  totalSamples: number;
+  summary: SeriesSummary;
+}
+
+export interface RecordingTask {
+  path: string;
+  signal: SignalSettings;
+  /** Feature options, with the recording's own jitter seed. */
+  options: FeatureOptions;
+  /** Cells wanted, in the order the results should come back. */
+  cells: Cell[];
+  /** Cache folder, or null for no cache. */
+  cacheDir: string | null;
+}
+
+export interface RecordingOutcome {
+  facts: RecordingFacts;
+  /** Features of `task.cells`, aligned with it. */
+  cells: CellFeatures[];
+  /** The cells that were computed (not found in the cache). */
+  computed: Cell[];
+  /** True when the recording's samples were read and parsed (false when everything was cached). */
+  parsed: boolean;
+  warnings: string[];
+}
+
+/**
+ * Cache key of one cell of one recording: file content, signal selection, cell, tie rule,
+ * jitter draws and seed (only under the jitter rule, the only one that draws), scale form,
+ * the flagging threshold and FEATURE_DEFINITIONS_VERSION. Returns a SHA-256 hex string.
+ */
+export function cellCacheKey(sha256: string, signal: SignalSettings, options: FeatureOptions, cell: Cell): string {
+  const jitter = options.ties === 'jitter';
+  return cacheKey({
+    definitions: FEATURE_DEFINITIONS_VERSION,
+    file: sha256,
+    signal: { column: signal.column, start: signal.start, length: signal.length },
+    cell: { order: cell.order, delay: cell.delay, scale: cell.scale },
+    ties: options.ties,
+    jitterRepeats: jitter ? options.jitterRepeats : null,
+    jitterSeed: jitter ? options.seed : null,
+    scaleForm: options.scaleForm,
+    minWindowsPerPattern: options.minWindowsPerPattern,
+  });
+}
+
+/** Cache key of the facts of one recording (file content and signal selection). */
+export function factsCacheKey(sha256: string, signal: SignalSettings): string {
+  return cacheKey({ facts: 1, file: sha256, signal: { column: signal.column, start: signal.start, length: signal.length } });
+}
+
+/**
+ * Features of one recording at the task's cells: cells found in the cache are taken from it,
+ * the rest are computed from the recording (read once, released on return). Nothing is
+ * written here: the caller stores the new cells with {@link storeOutcome} once the whole
+ * stage has succeeded, so that a failing run leaves no trace. With everything cached the
+ * file is only hashed (SHA-256), never parsed.
+ * Throws InputError for an unreadable recording (see readSeries).
+ */
+export async function recordingFeatures(task: RecordingTask): Promise<RecordingOutcome> {
+  const cache = task.cacheDir === null ? null : openFeatureCache(task.cacheDir);
+  if (cache) {
+    const sha256 = sha256File(task.path);
+    const facts = cache.read<RecordingFacts>('recordings', factsCacheKey(sha256, task.signal));
+    const found = task.cells.map((c) => cache.read<CellFeatures>('cells', cellCacheKey(sha256, task.signal, task.options, c)));
+    if (facts && facts.sha256 === sha256 && found.every((c) => c !== null)) {
+      return { facts, cells: found as CellFeatures[], computed: [], parsed: false, warnings: cache.warnings };
+    }
+    return computeAndStore(task, cache, { sha256, found });
+  }
+  return computeAndStore(task, null, null);
+}
+
+/** Cells looked up before reading, valid only if the bytes parsed have this SHA-256. */
+interface EarlierLookup {
+  sha256: string;
+  found: (CellFeatures | null)[];
+}
+
+async function computeAndStore(task: RecordingTask, cache: FeatureCache | null, earlier: EarlierLookup | null): Promise<RecordingOutcome> {
+  const series = await readSeries(task.path, task.signal);
+  const sha256 = series.source?.sha256 ?? sha256File(task.path);
+  const facts: RecordingFacts = {
+    sha256,
+    format: series.format,
+    channel: series.channel,
+    sampleRate: series.sampleRate,
+    totalSamples: series.totalSamples,
+    summary: describeSeries(series.values),
+  };
+  const byId = new Map<string, CellFeatures>();
+  const missing: Cell[] = [];
+  for (const [i, cell] of task.cells.entries()) {
+    // the file may have changed between hashing and reading: then look the cells up again
+    const hit = earlier?.sha256 === sha256 ? earlier.found[i] : (cache?.read<CellFeatures>('cells', cellCacheKey(sha256, task.signal, task.options, cell)) ?? null);
+    if (hit) byId.set(cellId(hit), hit);
+    else missing.push(cell);
+  }
+  for (const grid of gridsCovering(missing)) {
+    for (const computed of computeGridFeatures(series.values, grid, task.options)) byId.set(cellId(computed), computed);
+  }
+  return { facts, cells: task.cells.map((c) => byId.get(cellId(c))!), computed: missing, parsed: true, warnings: cache?.warnings ?? [] };
+}
+
+/**
+ * Writes what `recordingFeatures` computed for `task` into the cache: the cells in
+ * outcome.computed and, when the file was parsed, its facts. Nothing for a task without cache.
+ */
+export function storeOutcome(task: RecordingTask, outcome: RecordingOutcome, cache: FeatureCache): void {
+  const computed = new Set(outcome.computed.map(cellId));
+  for (const cell of outcome.cells) {
+    if (computed.has(cellId(cell))) cache.write('cells', cellCacheKey(outcome.facts.sha256, task.signal, task.options, cell), cell);
+  }
+  if (outcome.parsed) cache.write('recordings', factsCacheKey(outcome.facts.sha256, task.signal), outcome.facts);
+}
