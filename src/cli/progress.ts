@@ -1,8 +1,9 @@
 /**
  * Progress on standard error. On a terminal: one line per stage redrawn in place, a bar with
  * counts, elapsed time and an estimate of the time left (elapsed / done x remaining). Not on
- * a terminal (a log file, a batch job): plain lines, one at the end of each stage and, in a
- * long stage, one every PLAIN_LINE_SECONDS with the time left.
+ * a terminal (a log file, a batch job): plain lines, one at the end of each stage and, within
+ * a stage, one when the count reaches 10, 100, 1000, ... and one every PLAIN_LINE_SECONDS,
+ * with the time left.
  * Colour only on a terminal and only when NO_COLOR is unset or empty (no-color.org [M]).
  */
 import { safeText } from './terminal.ts';
@@ -51,7 +52,7 @@ export function createProgress(sink: ProgressSink, env: Record<string, string | 
   const color = sink.isTTY && !env.NO_COLOR;
   const starts = new Map<string, number>();
   let current: string | null = null;
-  let lastDraw = 0;
+  let lastDraw = -Infinity;
   let lastLine = 0;
   const end = (): void => {
     if (sink.isTTY && current !== null) sink.write('\n');
@@ -64,7 +65,7 @@ export function createProgress(sink: ProgressSink, env: Record<string, string | 
     if (stage !== current) {
       end();
       current = stage;
-      lastDraw = 0;
+      lastDraw = -Infinity;
       lastLine = t;
     }
     if (sink.isTTY) {
@@ -76,11 +77,18 @@ export function createProgress(sink: ProgressSink, env: Record<string, string | 
       if (done >= total) end();
       return;
     }
-    if (done < total && t - lastLine < PLAIN_LINE_SECONDS * 1000) return;
+    if (done < total && !isPowerOfTen(done) && t - lastLine < PLAIN_LINE_SECONDS * 1000) return;
     lastLine = t;
     const left = done > 0 && done < total ? `, about ${formatClock((elapsed / done) * (total - done))} left` : '';
     sink.write(`${safeText(stage)}: ${done}/${total} (${formatClock(elapsed)} elapsed${left})\n`);
     if (done >= total) current = null;
   };
   return { onProgress, end };
+}
+
+/** True for 10, 100, 1000, ... */
+function isPowerOfTen(n: number): boolean {
+  if (n < 10) return false;
+  while (n % 10 === 0) n /= 10;
+  return n === 1;
 }
