@@ -35,7 +35,7 @@ export function univariateSection(input: ReportInput): Markup {
   return html`<section id="univariate"><h2>Feature by feature</h2>
     <p>Each feature at each grid cell compared on its own: Hedges' g (${b} minus ${a}) with its 95% interval, the two-sided
     Mann–Whitney p, AUC = U / (n₁ n₂), and the Benjamini–Hochberg q over all ${input.univariate.length} comparisons.
-    The ${ranked.length} rows with the smallest q are shown; features.csv and results.json hold them all.</p>
+    The ${ranked.length} rows with the smallest q are shown; univariate.csv and results.json hold them all.</p>
     <div class="scroll"><table class="univariate"><thead><tr><th>feature</th><th>cell</th><th>n (${a} / ${b})</th>
       <th>${a} mean ± SD</th><th>${b} mean ± SD</th><th>g</th><th>95% interval of g</th><th>MW p</th><th>AUC</th><th>q</th><th>note</th></tr></thead>
       <tbody>${ranked.map(row)}</tbody></table></div></section>`;
