@@ -74,6 +74,7 @@ function progressFor(cmd: ParsedCommand, io: Io) {
 /** `features --shard K/N`: one part of the feature work into the cache, no output folder. */
 async function runShard(cmd: ParsedCommand, io: Io, study: Study, cacheDir: string | null): Promise<number> {
   const shard = parseShard(String(cmd.values.shard));
+  if (cmd.values.out !== undefined) throw new InputError('--shard computes into the feature cache and writes no output folder, so it takes no --out — run patternfold run (or features) with the same --cache afterwards');
   const jobs = parseJobs(cmd.values.jobs as string | undefined);
   const pools = lazyPool(jobs);
   const pool = pools.get(cmd.values.jobs !== undefined || featureWorkIsLarge(study));
