@@ -10,12 +10,12 @@
  * Layout: nodes live in flat typed arrays shared by all trees of a forest ({@link NodeStore});
  * the two children of a node are stored next to each other, so only the left index is kept.
  * A node's rows are a contiguous segment of one Int32Array that is partitioned in place.
- * A node's rows are put in the order of a column by bucketing them by rank
- * ({@link RankBuckets}), not by sorting. No object is allocated per node or per tree.
+ * A node's rows are put in the order of a column by bucketing them by rank, not by sorting
+ * ({@link ColumnSplitSearch}). No object is allocated per node or per tree.
  */
 import type { ColumnRanks } from './column-ranks.ts';
 import type { Rng } from '../../shared/random.ts';
-import { RankBuckets } from './rank-buckets.ts';
+import { CLASS1_UNIT, COLUMN_BETTER, COLUMN_CONSTANT, ColumnSplitSearch } from './column-split.ts';
 
 /** Settings of one tree, already validated and resolved against the table's width. */
 export interface TreeSettings {
@@ -70,21 +70,15 @@ export class TreeGrower {
   private readonly nCols: number;
   /** Bootstrap draws of each row (0 for rows left out). */
   private readonly weight: Int32Array;
-  /** Draws of each row that count for class 1: weight[i] · y[i]. */
-  private readonly weight1: Int32Array;
+  /** weight[i] + weight[i] · y[i] · CLASS1_UNIT, the packed form the split search reads. */
+  private readonly packedWeight: Float64Array;
   /** In-bag rows; each node owns a contiguous segment. */
   private readonly samples: Int32Array;
-  private readonly buckets: RankBuckets;
+  private readonly search: ColumnSplitSearch;
   private readonly pool: Int32Array;
   private readonly stack: Int32Array;
-  // Result of the last split search (fields, so that the hot path allocates nothing).
-  private bestNumerator = -1;
-  private bestDenominator = 1;
+  /** Column of the best split of the node being searched; -1 for none. */
   private bestFeature = -1;
-  private bestRankLeft = 0;
-  private bestRankRight = 0;
-  private bestLeft0 = 0;
-  private bestLeft1 = 0;
 
   constructor(
     private readonly ranks: ColumnRanks,
@@ -94,9 +88,10 @@ export class TreeGrower {
     this.nRows = ranks.nRows;
     this.nCols = ranks.nCols;
     this.weight = new Int32Array(this.nRows);
-    this.weight1 = new Int32Array(this.nRows);
+    if (this.nRows >= CLASS1_UNIT) throw new RangeError(`forest.fit: at most ${CLASS1_UNIT - 1} rows, got ${this.nRows}`);
+    this.packedWeight = new Float64Array(this.nRows);
     this.samples = new Int32Array(this.nRows);
-    this.buckets = new RankBuckets(this.nRows);
+    this.search = new ColumnSplitSearch(this.nRows);
     this.pool = new Int32Array(this.nCols);
     for (let c = 0; c < this.nCols; c++) this.pool[c] = c;
     this.stack = new Int32Array(STACK_SLOTS * (this.nRows + 2));
@@ -110,7 +105,7 @@ export class TreeGrower {
    */
   grow(rng: Rng, store: NodeStore): number {
     const n = this.nRows;
-    const { weight, weight1, samples, y, stack } = this;
+    const { weight, packedWeight, samples, y, stack, search } = this;
     this.drawWeights(rng);
     const root = store.size;
     let m = 0;
@@ -118,12 +113,11 @@ export class TreeGrower {
     let w1 = 0;
     for (let i = 0; i < n; i++) {
       const w = weight[i];
-      const w1i = y[i] === 1 ? w : 0;
-      weight1[i] = w1i;
+      packedWeight[i] = w + (y[i] === 1 ? w * CLASS1_UNIT : 0);
       if (w === 0) continue;
       samples[m++] = i;
-      w1 += w1i;
-      w0 += w - w1i;
+      if (y[i] === 1) w1 += w;
+      else w0 += w;
     }
     store.reserve(2 * m - 1); // a binary tree with at most m leaves has at most 2m - 1 nodes
     store.size++;
@@ -144,13 +138,13 @@ export class TreeGrower {
       }
       const f = this.bestFeature;
       const left = store.size;
-      const mid = this.partition(start, end, f, this.bestRankLeft);
+      const mid = this.partition(start, end, f, search.bestRankLeft);
       store.size += 2;
       store.feature[node] = f;
       store.left[node] = left;
-      store.value[node] = this.threshold(f, this.bestRankLeft, this.bestRankRight);
-      const l0 = this.bestLeft0;
-      const l1 = this.bestLeft1;
+      store.value[node] = this.threshold(f, search.bestRankLeft, search.bestRankRight);
+      const l0 = search.bestLeft0;
+      const l1 = search.bestLeft1;
       top = push(stack, top, left + 1, mid, end, depth + 1, c0 - l0, c1 - l1);
       top = push(stack, top, left, start, mid, depth + 1, l0, l1);
     }
@@ -183,79 +177,26 @@ export class TreeGrower {
    * Returns false when no column admits a split with both children >= minLeaf.
    */
   private findBestSplit(rng: Rng, start: number, end: number, c0: number, c1: number): boolean {
-    const { pool } = this;
-    this.bestNumerator = -1;
-    this.bestDenominator = 1;
+    const { pool, search, samples, packedWeight, nRows } = this;
+    const { rank } = this.ranks;
+    const { maxFeatures, minLeaf } = this.settings;
+    search.reset();
     this.bestFeature = -1;
     const total = c0 + c1;
     let remaining = this.nCols;
     let searched = 0;
-    while (remaining > 0 && searched < this.settings.maxFeatures && this.bestNumerator !== total * this.bestDenominator) {
+    while (remaining > 0 && searched < maxFeatures && search.bestNumerator !== total * search.bestDenominator) {
       const j = rng.int(remaining);
       const f = pool[j];
       remaining--;
       pool[j] = pool[remaining];
       pool[remaining] = f;
-      if (this.scanColumn(f, start, end, c0, c1)) searched++;
+      const outcome = search.search(rank, f * nRows, samples, start, end, packedWeight, c0, c1, minLeaf);
+      if (outcome === COLUMN_CONSTANT) continue;
+      searched++;
+      if (outcome === COLUMN_BETTER) this.bestFeature = f;
     }
     return this.bestFeature >= 0;
-  }
-
-  /**
-   * Scans the node's rows in the order of column f for the best threshold, and keeps it if
-   * it beats the best so far. Returns false when the column is constant in the node.
-   *
-   * The rows are bucketed by their rank in column f; the buckets come back in ascending
-   * rank, each with its total weight and class-1 weight, so that rows sharing a value
-   * (ties) fall into one bucket and candidates lie only between distinct values.
-   *
-   * Minimising the children's weighted Gini impurity, Σ_child w_child (1 − Σ_k p_k²), is
-   * maximising Σ_child Σ_k w_k² / w_child = num / den with num = (l0² + l1²) nr +
-   * (r0² + r1²) nl and den = nl nr. Weights are whole numbers, so candidates are compared
-   * as num · bestDen > bestNum · den, exactly for totals up to about 1,500 rows.
-   */
-  private scanColumn(f: number, start: number, end: number, c0: number, c1: number): boolean {
-    const buckets = this.buckets;
-    const { bucketRank, bucketWeight, bucketWeight1 } = buckets;
-    const distinct = buckets.fill(this.ranks.rank, f * this.nRows, this.samples, start, end, this.weight, this.weight1);
-    if (distinct < 2) return false;
-    const minLeaf = this.settings.minLeaf;
-    const total = c0 + c1;
-    let bestNum = this.bestNumerator;
-    let bestDen = this.bestDenominator;
-    let found = -1;
-    let foundLeft = 0;
-    let foundLeft1 = 0;
-    let nl = 0;
-    let l1 = 0;
-    for (let k = 0; k < distinct - 1; k++) {
-      nl += bucketWeight[k];
-      l1 += bucketWeight1[k];
-      const nr = total - nl;
-      if (nl < minLeaf || nr < minLeaf) continue;
-      const l0 = nl - l1;
-      const r0 = c0 - l0;
-      const r1 = c1 - l1;
-      const num = (l0 * l0 + l1 * l1) * nr + (r0 * r0 + r1 * r1) * nl;
-      const den = nl * nr;
-      if (num * bestDen > bestNum * den) {
-        bestNum = num;
-        bestDen = den;
-        found = k;
-        foundLeft = nl;
-        foundLeft1 = l1;
-      }
-    }
-    if (found >= 0) {
-      this.bestNumerator = bestNum;
-      this.bestDenominator = bestDen;
-      this.bestFeature = f;
-      this.bestRankLeft = bucketRank[found];
-      this.bestRankRight = bucketRank[found + 1];
-      this.bestLeft0 = foundLeft - foundLeft1;
-      this.bestLeft1 = foundLeft1;
-    }
-    return true;
   }
 
   /** Moves rows with rank <= rankLeft in column f to the front of the segment; returns the split point. */

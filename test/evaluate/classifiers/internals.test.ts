@@ -6,7 +6,7 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { choleskySolveInPlace } from '../../../src/evaluate/classifiers/cholesky.ts';
 import { rankColumns } from '../../../src/evaluate/classifiers/column-ranks.ts';
-import { RankBuckets } from '../../../src/evaluate/classifiers/rank-buckets.ts';
+import { CLASS1_UNIT, COLUMN_BETTER, COLUMN_CONSTANT, ColumnSplitSearch } from '../../../src/evaluate/classifiers/column-split.ts';
 import { sortByFloat64Key } from '../../../src/evaluate/classifiers/sort-pairs.ts';
 
 describe('sort-pairs', () => {
@@ -61,50 +61,97 @@ describe('rankColumns', () => {
   });
 });
 
-describe('RankBuckets', () => {
+describe('ColumnSplitSearch', () => {
   it('doc example [D]', () => {
-    const b = new RankBuckets(4);
-    const d = b.fill(Int32Array.of(2, 0, 2, 1), 0, Int32Array.of(0, 1, 2, 3), 0, 4, Int32Array.of(1, 2, 1, 1), Int32Array.of(0, 2, 1, 0));
-    expect(d).toBe(3);
-    expect([Array.from(b.bucketRank.subarray(0, d)), Array.from(b.bucketWeight.subarray(0, d)), Array.from(b.bucketWeight1.subarray(0, d))]).toEqual([
-      [0, 1, 2],
-      [2, 1, 2],
-      [2, 0, 1],
-    ]);
+    const search = new ColumnSplitSearch(4);
+    search.reset();
+    const packed = Float64Array.of(1, 1, 1 + CLASS1_UNIT, 1 + CLASS1_UNIT);
+    expect(search.search(Int32Array.of(0, 1, 2, 3), 0, Int32Array.of(0, 1, 2, 3), 0, 4, packed, 2, 2, 1)).toBe(COLUMN_BETTER);
+    expect([search.bestRankLeft, search.bestRankRight, search.bestLeft0, search.bestLeft1]).toEqual([1, 2, 2, 0]);
+    expect([search.bestNumerator, search.bestDenominator]).toEqual([16, 4]);
   });
 
-  it('an empty segment gives no bucket', () => {
-    expect(new RankBuckets(5).fill(new Int32Array(5), 0, new Int32Array(5), 2, 2, new Int32Array(5), new Int32Array(5))).toBe(0);
+  it('a column with one value in the node, or an empty node, is constant', () => {
+    const search = new ColumnSplitSearch(5);
+    search.reset();
+    const packed = Float64Array.of(1, 2 + 2 * CLASS1_UNIT, 1, 1, 1);
+    expect(search.search(Int32Array.of(3, 3, 0, 1, 2), 0, Int32Array.of(0, 1, 2, 3, 4), 0, 2, packed, 1, 2, 1)).toBe(COLUMN_CONSTANT);
+    expect(search.search(Int32Array.of(3, 3, 0, 1, 2), 0, Int32Array.of(0, 1, 2, 3, 4), 2, 2, packed, 0, 0, 1)).toBe(COLUMN_CONSTANT);
   });
 
-  it('agrees with sorting and summing by rank, and leaves no residue between calls (fast-check oracle) [D]', () => {
-    // n up to 3000 exercises the two-level bitmap (more than 1024 ranks) as well as the
-    // one-word summary; the same RankBuckets is reused for every segment of one table.
-    fc.assert(
-      fc.property(fc.integer({ min: 1, max: 3000 }), fc.integer({ min: 1, max: 3000 }), fc.nat(), (n, distinctValues, seed) => {
-        let s = seed;
-        const next = () => (s = (Math.imul(s, 1103515245) + 12345) >>> 0);
-        const rank = Int32Array.from({ length: 2 * n }, () => next() % Math.min(n, distinctValues));
-        const weight = Int32Array.from({ length: n }, () => next() % 4);
-        const weight1 = Int32Array.from(weight, (w) => (next() % 2 === 0 ? w : 0));
-        const samples = Int32Array.from({ length: n }, (_, i) => i);
-        const buckets = new RankBuckets(n);
-        for (const [offset, start, end] of [[0, 0, n], [n, n >> 2, n - (n >> 3)], [0, n >> 1, n]]) {
-          const expected = new Map<number, [number, number]>();
-          for (let k = start; k < end; k++) {
-            const r = rank[offset + samples[k]];
-            const [w, w1] = expected.get(r) ?? [0, 0];
-            expected.set(r, [w + weight[samples[k]], w1 + weight1[samples[k]]]);
-          }
-          const ranks = [...expected.keys()].sort((a, b) => a - b);
-          const d = buckets.fill(rank, offset, samples, start, end, weight, weight1);
-          expect(d).toBe(ranks.length);
-          expect(Array.from(buckets.bucketRank.subarray(0, d))).toEqual(ranks);
-          expect(Array.from(buckets.bucketWeight.subarray(0, d))).toEqual(ranks.map((r) => expected.get(r)![0]));
-          expect(Array.from(buckets.bucketWeight1.subarray(0, d))).toEqual(ranks.map((r) => expected.get(r)![1]));
+  /** Weighted Gini impurity of the two children of every threshold, by direct summation [D]. */
+  function bruteForceSplits(ranks: number[], w: number[], w1: number[], minLeaf: number): { rankLeft: number; rankRight: number; impurity: number }[] {
+    const distinct = [...new Set(ranks)].sort((a, b) => a - b);
+    const gini = (n: number, n1: number) => (n === 0 ? 0 : n * (1 - (n1 / n) ** 2 - ((n - n1) / n) ** 2));
+    const out = [];
+    for (let k = 0; k + 1 < distinct.length; k++) {
+      let nl = 0, l1 = 0, nr = 0, r1 = 0;
+      ranks.forEach((r, i) => {
+        if (r <= distinct[k]) {
+          nl += w[i];
+          l1 += w1[i];
+        } else {
+          nr += w[i];
+          r1 += w1[i];
         }
+      });
+      if (nl >= minLeaf && nr >= minLeaf) out.push({ rankLeft: distinct[k], rankRight: distinct[k + 1], impurity: gini(nl, l1) + gini(nr, r1) });
+    }
+    return out;
+  }
+
+  it('finds the split of least weighted Gini impurity across columns, against brute force (fast-check) [D]', () => {
+    // n up to 3000 exercises the two-level bitmap (more than 1024 ranks) as well as the
+    // one-word summary; one search object is reused for every column and node, so scratch
+    // left behind by one search would spoil the next.
+    const search = new ColumnSplitSearch(3000);
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 3000 }), fc.integer({ min: 1, max: 40 }), fc.integer({ min: 1, max: 4 }), fc.nat(), (n, m0, minLeaf, seed) => {
+        let state = seed;
+        const next = (k: number) => (state = (Math.imul(state, 1103515245) + 12345) >>> 0) % k;
+        const m = Math.min(m0, n);
+        const nCols = 3;
+        const values = 1 + next(n); // distinct values per column, 1 = constant
+        const rank = Int32Array.from({ length: nCols * n }, () => next(values));
+        const samples = Int32Array.from({ length: n }, (_, i) => i);
+        for (let i = n - 1; i > 0; i--) {
+          const j = next(i + 1);
+          [samples[i], samples[j]] = [samples[j], samples[i]];
+        }
+        const w = Array.from({ length: n }, () => 1 + next(3));
+        const w1 = w.map((v) => (next(2) === 1 ? v : 0));
+        const packed = Float64Array.from(w, (v, i) => v + w1[i] * CLASS1_UNIT);
+        const start = n - m;
+        const rows = Array.from(samples.subarray(start, n));
+        const c1 = rows.reduce((a, i) => a + w1[i], 0);
+        const c0 = rows.reduce((a, i) => a + w[i], 0) - c1;
+        search.reset();
+        let best: { col: number; impurity: number } | null = null;
+        let bestCol = -1;
+        for (let col = 0; col < nCols; col++) {
+          const ranks = rows.map((i) => rank[col * n + i]);
+          const outcome = search.search(rank, col * n, samples, start, n, packed, c0, c1, minLeaf);
+          expect(outcome === COLUMN_CONSTANT).toBe(new Set(ranks).size < 2);
+          if (outcome === COLUMN_BETTER) bestCol = col;
+          for (const split of bruteForceSplits(ranks, rows.map((i) => w[i]), rows.map((i) => w1[i]), minLeaf)) {
+            if (best === null || split.impurity < best.impurity - 1e-9) best = { col, impurity: split.impurity };
+          }
+        }
+        if (best === null) {
+          expect(bestCol).toBe(-1);
+          return;
+        }
+        // The chosen split: impurity = total − num / den; it must be the least one found by brute force.
+        expect(bestCol).toBeGreaterThanOrEqual(0);
+        expect(c0 + c1 - search.bestNumerator / search.bestDenominator).toBeCloseTo(best.impurity, 9);
+        const ranks = rows.map((i) => rank[bestCol * n + i]);
+        const left = rows.filter((_, k) => ranks[k] <= search.bestRankLeft);
+        expect(left.reduce((a, i) => a + w[i] - w1[i], 0)).toBe(search.bestLeft0);
+        expect(left.reduce((a, i) => a + w1[i], 0)).toBe(search.bestLeft1);
+        // rankRight is the next value present in the node.
+        expect(Math.min(...ranks.filter((r) => r > search.bestRankLeft))).toBe(search.bestRankRight);
       }),
-      { numRuns: 60 },
+      { numRuns: 150 },
     );
   });
 });
