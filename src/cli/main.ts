@@ -6,14 +6,23 @@ import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { InputError } from '../shared/errors.ts';
 import { loadStudy, STUDY_SCHEMA, studyTemplate, type Study } from '../study/index.ts';
-import { abandonActiveStaging, checkStudy, runStudy, TOOL_VERSION, type RunOutcome } from '../run/index.ts';
 import { commandHelp, mainHelp } from './help.ts';
 import { findCommand, parseCommand, type ParsedCommand } from './parse.ts';
 import { formatTable, processIo, safeText, type Io } from './terminal.ts';
 import { cacheFolderOf, runCacheCommand } from './cache-command.ts';
 import { runCompareCommand } from './compare-command.ts';
 import { createProgress } from './progress.ts';
-import { claimRunFolder, releaseRunFolder, runFolderBase } from '../run/run-folder.ts';
+import {
+  abandonActiveStaging,
+  checkStudy,
+  claimRunFolder,
+  releaseClaimedRunFolders,
+  releaseRunFolder,
+  runFolderBase,
+  runStudy,
+  TOOL_VERSION,
+  type RunOutcome,
+} from '../run/index.ts';
 import { parseJobs } from '../run/worker-pool.ts';
 import { computeShard, parseShard } from '../run/shard.ts';
 import { IN_THREAD } from '../run/feature-work.ts';
@@ -175,6 +184,7 @@ export function installInterruptHandlers(io: Io = processIo): void {
   for (const [signal, code] of [['SIGINT', 130], ['SIGTERM', 143]] as const) {
     process.once(signal, () => {
       const removed = abandonActiveStaging();
+      releaseClaimedRunFolders();
       io.err(
         `patternfold: interrupted (${signal}): ${removed > 0 ? 'the unfinished output was removed; ' : ''}no output folder was changed (a previous complete one is kept as it was)`,
       );

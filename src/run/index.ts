@@ -10,5 +10,5 @@ export { openFeatureCache, summariseCache, pruneCache, clearCache, cacheKey, typ
 export { compareRuns, readRunRecord, type RunComparison } from './compare-runs.ts';
 export { computeShard, parseShard, shardItems, type Shard, type ShardOutcome } from './shard.ts';
 export { createWorkPool, lazyPool, parseJobs, defaultJobs, type WorkPool } from './worker-pool.ts';
-export { claimRunFolder, runFolderBase } from './run-folder.ts';
+export { claimRunFolder, releaseRunFolder, releaseClaimedRunFolders, runFolderBase } from './run-folder.ts';
 export { computeRecordings, type FeatureWork } from './feature-work.ts';

@@ -30,6 +30,7 @@ export function claimRunFolder(base: string): string {
     const path = n === 1 ? base : `${base}-${n}`;
     try {
       mkdirSync(path);
+      claimed.add(path);
       return path;
     } catch (e) {
       if ((e as { code?: string }).code !== 'EEXIST') throw e;
@@ -37,8 +38,17 @@ export function claimRunFolder(base: string): string {
   }
 }
 
+/** Folders this process claimed and has not released (an interrupted run releases them). */
+const claimed = new Set<string>();
+
+/** Releases every folder this process claimed that is still empty (on SIGINT/SIGTERM). */
+export function releaseClaimedRunFolders(): void {
+  for (const path of claimed) releaseRunFolder(path);
+}
+
 /** Removes a claimed folder if it is still empty (a run that failed before writing). */
 export function releaseRunFolder(path: string): void {
+  claimed.delete(path);
   try {
     if (readdirSync(path).length === 0) rmdirSync(path);
   } catch {

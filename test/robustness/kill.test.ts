@@ -6,7 +6,8 @@
  */
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { createHash } from 'node:crypto';
+import { join, relative, sep } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { twoGroupStudy } from '../helpers/tmp.ts';
 
@@ -58,6 +59,30 @@ function numbers(out: string): unknown {
   };
 }
 
+/**
+ * Every entry of the feature cache beside the study verifies: its header's checksum is the
+ * SHA-256 (FIPS 180-4, node:crypto) of its payload. Temporary files (dot names) are ignored.
+ */
+function corruptCacheEntries(dir: string): string[] {
+  const root = join(dir, '.patternfold-cache');
+  const bad: string[] = [];
+  const walk = (folder: string): void => {
+    for (const entry of readdirSync(folder, { withFileTypes: true })) {
+      const path = join(folder, entry.name);
+      if (entry.isDirectory()) walk(path);
+      else if (!entry.name.startsWith('.') && /^(cells|recordings)$/.test(relative(root, path).split(sep)[0])) {
+        const text = readFileSync(path, 'utf8');
+        const newline = text.indexOf('\n');
+        const [magic, , , checksum] = text.slice(0, newline).split(' ');
+        const body = text.slice(newline + 1);
+        if (magic !== 'patternfold-cache' || createHash('sha256').update(body, 'utf8').digest('hex') !== checksum) bad.push(path);
+      }
+    }
+  };
+  if (existsSync(root)) walk(root);
+  return bad;
+}
+
 const leftovers = (dir: string) => readdirSync(dir).filter((f) => f.includes('.staging-') || f.includes('.previous-'));
 
 describe('a run killed with SIGKILL', () => {
@@ -73,6 +98,8 @@ describe('a run killed with SIGKILL', () => {
       runToEnd(dir, out);
       expect(numbers(out)).toEqual(numbers(reference));
       expect(leftovers(dir)).toEqual([]);
+      expect(existsSync(join(dir, '.patternfold-cache'))).toBe(true);
+      expect(corruptCacheEntries(dir)).toEqual([]);
     });
   }
 
@@ -105,5 +132,22 @@ describe('a run stopped with SIGTERM', () => {
     expect(err).toMatch(/interrupted \(SIGTERM\): .*no output folder was changed/);
     expect(existsSync(out)).toBe(false);
     expect(leftovers(dir)).toEqual([]);
+  });
+
+  it('without --out leaves no empty run folder behind', async () => {
+    const dir = twoGroupStudy(STUDY, 6, 300);
+    const child = spawn(process.execPath, [BIN, 'run', 'study.yaml'], { cwd: dir });
+    let err = '';
+    let sent = false;
+    child.stderr.on('data', (chunk: Buffer) => {
+      err += chunk.toString();
+      if (!sent && /features/.test(err)) {
+        sent = true;
+        child.kill('SIGTERM');
+      }
+    });
+    expect(await new Promise((resolve) => child.once('exit', (c) => resolve(c)))).toBe(143);
+    const runs = join(dir, 'reports', 'kill-test');
+    expect(existsSync(runs) ? readdirSync(runs) : []).toEqual([]);
   });
 });
