@@ -7,6 +7,9 @@ const BENCHES: Record<string, () => Promise<unknown>> = {
   features: async () => (await import('./features.ts')).benchFeatures(),
   classifiers: async () => (await import('./classifiers.ts')).benchClassifiers(),
   evaluate: async () => (await import('./evaluate.ts')).benchEvaluate(),
+  rerun: async () => (await import('./rerun.ts')).benchRerun(),
+  workers: async () => (await import('./workers.ts')).benchWorkers(),
+  memory: async () => (await import('./memory.ts')).benchMemory(),
 };
 
 const only = process.env.BENCH_ONLY?.split(',').map((s) => s.trim());
