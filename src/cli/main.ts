@@ -31,10 +31,6 @@ import { featureWorkIsLarge } from '../run/work-size.ts';
 
 const percent = (x: number) => (Number.isFinite(x) ? `${(100 * x).toFixed(1)}%` : '-');
 
-/** Default output folder of a run: reports/<study name>/<UTC time>-<study hash>. */
-export function defaultOutFolder(study: Study, now: Date): string {
-  return runFolderBase(study, now);
-}
 
 function loadFromArgs(cmd: ParsedCommand): Study {
   return loadStudy(cmd.positionals[0], { overrides: (cmd.values.set as string[] | undefined) ?? [] });
@@ -105,7 +101,7 @@ async function runPipeline(cmd: ParsedCommand, io: Io, stage: 'features' | 'all'
   if (cmd.values.shard !== undefined) return runShard(cmd, io, study, cacheDir);
   const jobs = parseJobs(cmd.values.jobs as string | undefined);
   const given = cmd.values.out as string | undefined;
-  const out = given ?? claimRunFolder(defaultOutFolder(study, new Date()));
+  const out = given ?? claimRunFolder(runFolderBase(study, new Date()));
   const quiet = Boolean(cmd.values.quiet);
   const progress = progressFor(cmd, io);
   let outcome: RunOutcome;

@@ -2,20 +2,12 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.ts';
-import type { Io } from '../../src/cli/terminal.ts';
 import { makeFolder, twoGroupStudy } from '../helpers/tmp.ts';
+import { runCli } from '../helpers/cli.ts';
 
 const BIN = join(import.meta.dirname, '..', '..', 'bin', 'patternfold.js');
 
-/** Runs the command line in-process and captures what it prints. */
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: Io = { out: (t) => void (out += t + '\n'), err: (t) => void (err += t + '\n') };
-  const code = await main(args, io);
-  return { code, out, err };
-}
+const cli = runCli;
 
 const MINIMAL = 'name: t\ngroups:\n  a: a/*.csv\n  b: b/*.csv\ngrid: {order: [3], delay: [1], scale: [1]}\nevaluation: {folds: 2, repeats: 1, permutations: 0}\n';
 

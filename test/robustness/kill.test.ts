@@ -113,21 +113,27 @@ describe('a run killed with SIGKILL', () => {
   });
 });
 
+/** Starts `patternfold run ARGS` in `cwd`, sends SIGTERM once it reports the features stage, and returns its exit code and stderr. */
+async function terminateAtFeatures(args: string[], cwd: string): Promise<{ code: number | null; err: string }> {
+  const child = spawn(process.execPath, [BIN, 'run', ...args], { cwd });
+  let err = '';
+  let sent = false;
+  child.stderr.on('data', (chunk: Buffer) => {
+    err += chunk.toString();
+    if (!sent && /features/.test(err)) {
+      sent = true;
+      child.kill('SIGTERM');
+    }
+  });
+  const code = await new Promise<number | null>((resolve) => child.once('exit', (c) => resolve(c)));
+  return { code, err };
+}
+
 describe('a run stopped with SIGTERM', () => {
   it('says that no output folder was changed and exits with 143 (128 + 15)', async () => {
     const dir = twoGroupStudy(STUDY, 6, 300);
     const out = join(dir, 'out');
-    const child = spawn(process.execPath, [BIN, 'run', join(dir, 'study.yaml'), '--out', out]);
-    let err = '';
-    let sent = false;
-    child.stderr.on('data', (chunk: Buffer) => {
-      err += chunk.toString();
-      if (!sent && /features/.test(err)) {
-        sent = true;
-        child.kill('SIGTERM');
-      }
-    });
-    const code = await new Promise((resolve) => child.once('exit', (c) => resolve(c)));
+    const { code, err } = await terminateAtFeatures([join(dir, 'study.yaml'), '--out', out], dir);
     expect(code).toBe(143);
     expect(err).toMatch(/interrupted \(SIGTERM\): .*no output folder was changed/);
     expect(existsSync(out)).toBe(false);
@@ -136,17 +142,8 @@ describe('a run stopped with SIGTERM', () => {
 
   it('without --out leaves no empty run folder behind', async () => {
     const dir = twoGroupStudy(STUDY, 6, 300);
-    const child = spawn(process.execPath, [BIN, 'run', 'study.yaml'], { cwd: dir });
-    let err = '';
-    let sent = false;
-    child.stderr.on('data', (chunk: Buffer) => {
-      err += chunk.toString();
-      if (!sent && /features/.test(err)) {
-        sent = true;
-        child.kill('SIGTERM');
-      }
-    });
-    expect(await new Promise((resolve) => child.once('exit', (c) => resolve(c)))).toBe(143);
+    const { code } = await terminateAtFeatures(['study.yaml'], dir);
+    expect(code).toBe(143);
     const runs = join(dir, 'reports', 'kill-test');
     expect(existsSync(runs) ? readdirSync(runs) : []).toEqual([]);
   });

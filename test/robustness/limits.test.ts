@@ -5,18 +5,12 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.ts';
-import type { Io } from '../../src/cli/terminal.ts';
 import { estimateStatisticsCost } from '../../src/run/index.ts';
 import { loadStudy } from '../../src/study/index.ts';
 import { twoGroupStudy } from '../helpers/tmp.ts';
+import { runCli } from '../helpers/cli.ts';
 
-async function cli(...args: string[]) {
-  let out = '';
-  let err = '';
-  const io: Io = { out: (t) => void (out += t + '\n'), err: (t) => void (err += t + '\n') };
-  return { code: await main(args, io), out, err };
-}
+const cli = runCli;
 
 const BASE = 'name: t\ngroups:\n  a: a/*.csv\n  b: b/*.csv\n';
 

@@ -4,26 +4,19 @@
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.ts';
-import type { Io } from '../../src/cli/terminal.ts';
 import { claimRunFolder, runFolderBase } from '../../src/run/run-folder.ts';
 import { settingChanges } from '../../src/run/compare-runs.ts';
 import { createProgress, formatClock, progressLine } from '../../src/cli/progress.ts';
 import { parseJobs } from '../../src/run/worker-pool.ts';
 import { formatBytes } from '../../src/cli/cache-command.ts';
 import { makeFolder, twoGroupStudy } from '../helpers/tmp.ts';
+import { runCli } from '../helpers/cli.ts';
 
 const STUDY = 'name: Rec Study\nseed: 2\ngroups:\n  a: a/*.csv\n  b: b/*.csv\ngrid: {order: [3], delay: [1], scale: [1, 2]}\nevaluation: {folds: 2, repeats: 1, permutations: 9, trees: 10}\n';
 const folders: string[] = [];
 afterAll(() => folders.forEach((d) => rmSync(d, { recursive: true, force: true })));
 
-async function cli(...args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const io: Io = { out: (t) => void (out += t + '\n'), err: (t) => void (err += t + '\n') };
-  const code = await main(args, io);
-  return { code, out, err };
-}
+const cli = runCli;
 
 describe('run records', () => {
   it('names a run reports/<slug>/<UTC time>-<hash> and never gives two runs one folder', () => {
