@@ -1,6 +1,6 @@
 /** `patternfold cache`: size of the feature cache, pruning and clearing. */
 import { dirname, join, resolve } from 'node:path';
-import { clearCache, pruneCache, summariseCache } from '../run/feature-cache.ts';
+import { clearCache, pruneCache, summariseCache } from '../run/index.ts';
 import { InputError } from '../shared/errors.ts';
 import type { ParsedCommand } from './parse.ts';
 import { safeText, type Io } from './terminal.ts';

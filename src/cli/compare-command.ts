@@ -1,5 +1,5 @@
 /** `patternfold compare RUN_A RUN_B`: what changed between two runs, as plain text. */
-import { compareRuns, readRunRecord, type Movement } from '../run/compare-runs.ts';
+import { compareRuns, readRunRecord, type Movement } from '../run/index.ts';
 import type { ParsedCommand } from './parse.ts';
 import { formatTable, safeText, type Io } from './terminal.ts';
 

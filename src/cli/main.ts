@@ -16,6 +16,12 @@ import {
   abandonActiveStaging,
   checkStudy,
   claimRunFolder,
+  computeShard,
+  featureWorkIsLarge,
+  IN_THREAD,
+  lazyPool,
+  parseJobs,
+  parseShard,
   releaseClaimedRunFolders,
   releaseRunFolder,
   runFolderBase,
@@ -23,11 +29,6 @@ import {
   TOOL_VERSION,
   type RunOutcome,
 } from '../run/index.ts';
-import { parseJobs } from '../run/worker-pool.ts';
-import { computeShard, parseShard } from '../run/shard.ts';
-import { IN_THREAD } from '../run/feature-work.ts';
-import { lazyPool } from '../run/worker-pool.ts';
-import { featureWorkIsLarge } from '../run/work-size.ts';
 
 const percent = (x: number) => (Number.isFinite(x) ? `${(100 * x).toFixed(1)}%` : '-');
 

@@ -2,7 +2,7 @@
 export type { FeatureColumn, FeatureMatrix, ClassifierName, EvaluationSettings } from './types.ts';
 export type { Classifier, Model, TrainingSet } from './classifier.ts';
 export type { EvaluationResult, ColumnName } from './result.ts';
-export { evaluateStudy, evaluateWithClassifier, prepareStudy, classifierFor, STOP_AFTER_EXCEEDANCES, type ProgressCallback, type PreparedStudy } from './evaluate.ts';
+export { evaluateStudy, evaluateStudyWith, evaluateWithClassifier, prepareStudy, classifierFor, STOP_AFTER_EXCEEDANCES, type ProgressCallback, type PreparedStudy, type PermutationStage } from './evaluate.ts';
 export { compareGroups, type UnivariateRow } from './univariate.ts';
 export { aucFromScores, aucWithInterval } from './auc.ts';
 export { mannWhitneyU } from './mann-whitney.ts';
@@ -11,4 +11,4 @@ export { benjaminiHochberg } from './fdr.ts';
 export { midRanks } from './ranks.ts';
 export { rocCurve, type RocPoint } from './roc.ts';
 export { createForest, createLogistic } from './classifiers/index.ts';
-export { permutedStatistics, permutedStatisticsRange, permutationPValue } from './permutation.ts';
+export { permutedStatistics, permutedStatisticsRange, permutationPValue, runPermutationTest, type PermutablePipeline } from './permutation.ts';

@@ -7,8 +7,9 @@ export { estimateStatisticsCost, resourceConcerns, formatDuration, MAX_SENSIBLE_
 export { sha256File, sha256Text } from './hash.ts';
 export { TOOL_VERSION } from './version.ts';
 export { openFeatureCache, summariseCache, pruneCache, clearCache, cacheKey, type FeatureCache, type CacheSummary } from './feature-cache.ts';
-export { compareRuns, readRunRecord, type RunComparison } from './compare-runs.ts';
+export { compareRuns, readRunRecord, type RunComparison, type Movement } from './compare-runs.ts';
 export { computeShard, parseShard, shardItems, type Shard, type ShardOutcome } from './shard.ts';
 export { createWorkPool, lazyPool, parseJobs, defaultJobs, type WorkPool } from './worker-pool.ts';
 export { claimRunFolder, releaseRunFolder, releaseClaimedRunFolders, runFolderBase } from './run-folder.ts';
-export { computeRecordings, type FeatureWork } from './feature-work.ts';
+export { computeRecordings, IN_THREAD, type FeatureWork } from './feature-work.ts';
+export { featureWorkIsLarge, permutationWorkIsLarge } from './work-size.ts';

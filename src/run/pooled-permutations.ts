@@ -4,9 +4,7 @@
  * and in any order, then reading them in index order, gives the same null distribution,
  * the same sequential stop and the same p-values as one thread.
  */
-import type { PermutationStage } from '../evaluate/evaluate.ts';
-import { runPermutationTest, type PermutablePipeline } from '../evaluate/permutation.ts';
-import type { EvaluationSettings, FeatureMatrix } from '../evaluate/index.ts';
+import { runPermutationTest, type EvaluationSettings, type FeatureMatrix, type PermutablePipeline, type PermutationStage } from '../evaluate/index.ts';
 import { randomBytes } from 'node:crypto';
 import type { WorkPool } from './worker-pool.ts';
 

@@ -10,11 +10,10 @@ import { computeRecordings, IN_THREAD, type FeatureWork } from './feature-work.t
 import { lazyPool, type LazyPool, type WorkPool } from './worker-pool.ts';
 import { featureWorkIsLarge, permutationWorkIsLarge } from './work-size.ts';
 import { pooledPermutationStage } from './pooled-permutations.ts';
-import { evaluateStudyWith } from '../evaluate/evaluate.ts';
 import type { Cell } from '../features/index.ts';
 import { studyWarnings } from './warnings.ts';
 import { toArrowBytes, toCsvText } from './csv.ts';
-import { compareGroups, evaluateStudy, type EvaluationResult, type FeatureMatrix, type UnivariateRow } from '../evaluate/index.ts';
+import { compareGroups, evaluateStudy, evaluateStudyWith, type EvaluationResult, type FeatureMatrix, type UnivariateRow } from '../evaluate/index.ts';
 import { renderReport } from '../report/index.ts';
 import { deriveSeed } from '../shared/random.ts';
 import { recordingMatrix, subjectMatrix } from './feature-matrix.ts';
@@ -23,8 +22,7 @@ import { resourceConcerns } from './cost.ts';
 import { pauseIfRequested } from './test-pause.ts';
 import { InputError } from '../shared/errors.ts';
 import { pseudonymiseStudy, type PseudonymKeyRow } from './pseudonyms.ts';
-import { writeFileAtomic } from './output-folder.ts';
-import { stageFolder } from './output-folder.ts';
+import { stageFolder, writeFileAtomic } from './output-folder.ts';
 import { buildResults, type Results } from './results.ts';
 
 export interface RunOptions {

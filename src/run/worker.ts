@@ -3,9 +3,7 @@
  * statistics of a range of label permutations. Every task is a pure function of its plain
  * data input, so the results do not depend on which thread ran it or when.
  */
-import { classifierFor, prepareStudy, type PreparedStudy } from '../evaluate/evaluate.ts';
-import { permutedStatisticsRange } from '../evaluate/permutation.ts';
-import type { EvaluationSettings, FeatureMatrix } from '../evaluate/index.ts';
+import { classifierFor, permutedStatisticsRange, prepareStudy, type EvaluationSettings, type FeatureMatrix, type PreparedStudy } from '../evaluate/index.ts';
 import { InputError } from '../shared/errors.ts';
 import { recordingFeatures, type RecordingOutcome, type RecordingTask } from './recording-features.ts';
 
