@@ -15,6 +15,7 @@
  */
 import type { ColumnRanks } from './column-ranks.ts';
 import type { Rng } from '../../shared/random.ts';
+import { drawBootstrapCounts } from './bootstrap.ts';
 import { CLASS1_UNIT, COLUMN_BETTER, COLUMN_CONSTANT, ColumnSplitSearch } from './column-split.ts';
 
 /** Settings of one tree, already validated and resolved against the table's width. */
@@ -152,13 +153,8 @@ export class TreeGrower {
   }
 
   private drawWeights(rng: Rng): void {
-    const n = this.nRows;
-    if (!this.settings.bootstrap) {
-      this.weight.fill(1);
-      return;
-    }
-    this.weight.fill(0);
-    for (let k = 0; k < n; k++) this.weight[rng.int(n)]++;
+    if (this.settings.bootstrap) drawBootstrapCounts(rng, this.nRows, this.weight);
+    else this.weight.fill(1);
   }
 
   private shouldTrySplit(depth: number, c0: number, c1: number): boolean {
