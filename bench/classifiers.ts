@@ -15,6 +15,12 @@
  * ours (above 1: ours is faster). Figures vary with the machine's load, printed first.
  *
  * Run: node --import tsx bench/classifiers.ts [--runs 30]
+ *
+ * Instruction counts, which do not depend on the machine's load: `--forest-fits N` only
+ * warms up (50 fits) and then fits the forest N times on the 96-row table and predicts 19
+ * rows, so that under valgrind
+ *   valgrind --tool=callgrind --callgrind-out-file=/dev/null node --import tsx bench/classifiers.ts --forest-fits 10
+ * and the same with 30 give the instructions per fit as (I(30) − I(10)) / 20.
  */
 import { spawnSync } from 'node:child_process';
 import { loadavg } from 'node:os';
@@ -152,6 +158,17 @@ export async function benchClassifiers(options: { runs?: number } = {}): Promise
   return rows;
 }
 
+/** Only forest fits (for instruction counts under callgrind); prints a checksum of the predictions. */
+function forestFitsOnly(fits: number): void {
+  const table = benchTable();
+  const forest = createForest({ trees: TREES });
+  const test = table.X.subarray(0, 19 * N_COLS);
+  let checksum = 0;
+  for (let k = 0; k < 50 + fits; k++) checksum += forest.fit(table, k).predict(test, 19)[0];
+  console.log(`${fits} forest fits after 50 for warm-up; checksum ${checksum.toFixed(6)}`);
+}
+
 if (import.meta.url === `file://${process.argv[1]}`) {
-  await benchClassifiers({ runs: argument('--runs', 30) });
+  if (process.argv.includes('--forest-fits')) forestFitsOnly(argument('--forest-fits', 10));
+  else await benchClassifiers({ runs: argument('--runs', 30) });
 }

@@ -6,6 +6,7 @@
  * values, from which split thresholds are read back (Breiman et al. 1984, Classification
  * and Regression Trees, ch. 2: splits between consecutive distinct values).
  */
+import { sortByFloat64Key } from './sort-pairs.ts';
 
 /** Dense ranks and distinct values of every column; all arrays are column-major. */
 export interface ColumnRanks {
@@ -21,10 +22,8 @@ export interface ColumnRanks {
 /**
  * Dense ranks of each column of a row-major table.
  *
- * Per column: the engine's numeric sort of a copy of the column (TypedArray.prototype.sort,
- * no comparator), one pass keeping the distinct values, then each row's rank by binary
- * search among them. Complexity O(nCols · nRows · log nRows). The input must hold no NaN
- * (the caller checks); -0 and 0 share a rank.
+ * Complexity O(nCols · nRows · log nRows): one quicksort of (value, row) pairs per column,
+ * then one pass. The input must hold no NaN (the caller checks); -0 and 0 share a rank.
  *
  * @example rankColumns(Float64Array.of(3, 1, 3), 3, 1) gives rank [1, 0, 1], distinct [1, 3],
  * distinctStart [0, 2].
@@ -33,29 +32,26 @@ export function rankColumns(X: Float64Array, nRows: number, nCols: number): Colu
   const rank = new Int32Array(nRows * nCols);
   const distinctAll = new Float64Array(nRows * nCols);
   const distinctStart = new Int32Array(nCols + 1);
-  const sorted = new Float64Array(nRows);
+  const keys = new Float64Array(nRows);
+  const rows = new Int32Array(nRows);
   let used = 0;
   for (let c = 0; c < nCols; c++) {
-    for (let i = 0; i < nRows; i++) sorted[i] = X[i * nCols + c];
-    sorted.sort();
-    distinctStart[c] = used;
-    const first = used;
-    for (let k = 0; k < nRows; k++) {
-      if (k === 0 || sorted[k] !== sorted[k - 1]) distinctAll[used++] = sorted[k];
+    for (let i = 0; i < nRows; i++) {
+      keys[i] = X[i * nCols + c];
+      rows[i] = i;
     }
+    sortByFloat64Key(keys, rows, 0, nRows - 1);
     const offset = c * nRows;
-    for (let i = 0; i < nRows; i++) rank[offset + i] = lowerBound(distinctAll, first, used, X[i * nCols + c]) - first;
+    distinctStart[c] = used;
+    let r = -1;
+    for (let k = 0; k < nRows; k++) {
+      if (k === 0 || keys[k] !== keys[k - 1]) {
+        r++;
+        distinctAll[used++] = keys[k];
+      }
+      rank[offset + rows[k]] = r;
+    }
   }
   distinctStart[nCols] = used;
   return { nRows, nCols, rank, distinct: distinctAll.slice(0, used), distinctStart };
-}
-
-/** First index in the ascending a[lo, hi) whose value is not below v; O(log(hi − lo)). */
-function lowerBound(a: Float64Array, lo: number, hi: number, v: number): number {
-  while (lo < hi) {
-    const mid = (lo + hi) >>> 1;
-    if (a[mid] < v) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo;
 }

@@ -6,7 +6,32 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { choleskySolveInPlace } from '../../../src/evaluate/classifiers/cholesky.ts';
 import { rankColumns } from '../../../src/evaluate/classifiers/column-ranks.ts';
+import { sortByFloat64Key } from '../../../src/evaluate/classifiers/sort-pairs.ts';
 import { CLASS1_UNIT, COLUMN_BETTER, COLUMN_CONSTANT, ColumnSplitSearch } from '../../../src/evaluate/classifiers/column-split.ts';
+
+describe('sort-pairs', () => {
+  it('doc example [D]', () => {
+    const kf = Float64Array.of(0.5, -1, 0.25);
+    const vf = Int32Array.of(0, 1, 2);
+    sortByFloat64Key(kf, vf, 0, 2);
+    expect([Array.from(kf), Array.from(vf)]).toEqual([[-1, 0.25, 0.5], [1, 2, 0]]);
+  });
+
+  it('agrees with Array.prototype.sort and keeps each payload with its key (fast-check)', () => {
+    fc.assert(
+      // Keys in halves from -10 to 10: many ties, and ranges both above and below the
+      // insertion-sort cutoff.
+      fc.property(fc.array(fc.integer({ min: -20, max: 20 }).map((v) => v / 2), { maxLength: 300 }), (keys) => {
+        const k = Float64Array.from(keys);
+        const v = Int32Array.from(keys, (_, i) => i);
+        sortByFloat64Key(k, v, 0, k.length - 1);
+        expect(Array.from(k)).toEqual([...keys].sort((a, b) => a - b));
+        v.forEach((i, pos) => expect(keys[i]).toBe(k[pos]));
+        expect([...v].sort((a, b) => a - b)).toEqual(keys.map((_, i) => i));
+      }),
+    );
+  });
+});
 
 describe('rankColumns', () => {
   it('doc example [D]', () => {
