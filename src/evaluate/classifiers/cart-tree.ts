@@ -101,7 +101,7 @@ export class TreeGrower {
   /**
    * Grows one tree into `store` with randomness from `rng` (bootstrap draws first, then the
    * column draws of each split, depth first, left child before right). Returns the root's
-   * index. Complexity O(maxFeatures · (m + n / 32)) per node of m rows, about
+   * index. Complexity O(maxFeatures · (m + n / 1024)) per node of m rows, about
    * O(maxFeatures · n log n) for a balanced tree on n rows.
    */
   grow(rng: Rng, store: NodeStore): number {

@@ -64,8 +64,10 @@ export function createForest(options: ForestOptions): Classifier {
 /**
  * Fits a random forest (see {@link createForest}) and returns its flat node arrays.
  *
- * Complexity O(p n log n) to rank the columns once, then per tree about
- * O(maxFeatures · n log² n); on a 96 x 60 table 100 trees take a few milliseconds.
+ * Complexity O(p n log n) to rank the columns once, then per tree O(n) for the bootstrap and
+ * O(maxFeatures · (m + n / 1024)) per node of m rows (rank buckets, no sorting), about
+ * O(maxFeatures · n log n) for a balanced tree; on a 96 x 60 table 100 trees take a few
+ * milliseconds (docs/classifiers.md).
  * Throws Error when the training set is empty, malformed or holds NaN (the caller imputes).
  * A training set with one class gives a forest that predicts that class's share (0 or 1).
  *
