@@ -29,6 +29,7 @@ import { RandomForestClassifier } from 'ml-random-forest';
 import type { TrainingSet } from '../src/evaluate/classifier.ts';
 import { createForest, createLogistic } from '../src/evaluate/classifiers/index.ts';
 import { createRng } from '../src/shared/random.ts';
+import { argument } from './arguments.ts';
 
 export interface ClassifierBenchRow {
   task: string;
@@ -41,10 +42,6 @@ const N_ROWS = 96;
 const N_COLS = 60;
 const TREES = 100;
 
-function argument(name: string, fallback: number): number {
-  const i = process.argv.indexOf(name);
-  return i >= 0 ? Number(process.argv[i + 1]) : fallback;
-}
 
 /** The seeded benchmark table (row-major), standardised as the pipeline would. */
 function benchTable(): TrainingSet {

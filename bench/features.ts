@@ -19,6 +19,7 @@ import { computeGridFeatures } from '../src/features/grid-features.ts';
 import { countOrdinalPatterns } from '../src/features/count-patterns.ts';
 import type { FeatureOptions, Grid } from '../src/features/types.ts';
 import { createRng } from '../src/shared/random.ts';
+import { argument } from './arguments.ts';
 
 export interface FeatureBenchRow {
   task: string;
@@ -30,10 +31,6 @@ export interface FeatureBenchRow {
 
 const OPTIONS: FeatureOptions = { ties: 'appearance', jitterRepeats: 1, scaleForm: 'coarse', seed: 1, minWindowsPerPattern: 5 };
 
-function argument(name: string, fallback: number): number {
-  const i = process.argv.indexOf(name);
-  return i >= 0 ? Number(process.argv[i + 1]) : fallback;
-}
 
 /** Best (shortest) wall time in seconds of `runs` calls. */
 function bestSeconds(runs: number, task: () => unknown): number {

@@ -18,11 +18,8 @@ import { join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { computeFeatureStage } from '../src/run/run-study.ts';
 import { cohortStudy, recordingPath, writeRecording } from './rerun.ts';
+import { argument } from './arguments.ts';
 
-function argument(name: string, fallback: number): number {
-  const i = process.argv.indexOf(name);
-  return i >= 0 ? Number(process.argv[i + 1]) : fallback;
-}
 
 export interface MemoryFigures {
   subjects: number;

@@ -18,6 +18,7 @@ import { computeFeatureStage } from '../src/run/run-study.ts';
 import { createRng } from '../src/shared/random.ts';
 import type { Study } from '../src/study/index.ts';
 import type { Grid } from '../src/features/index.ts';
+import { argument } from './arguments.ts';
 
 /**
  * Text of one recording: an AR(1) series x_t = phi x_{t-1} + e_t, standard normal e_t from
@@ -74,10 +75,6 @@ export function cohortStudy(dir: string, subjects: number, grid: Grid, seed = 1)
   };
 }
 
-function argument(name: string, fallback: number): number {
-  const i = process.argv.indexOf(name);
-  return i >= 0 ? Number(process.argv[i + 1]) : fallback;
-}
 
 export interface RerunFigures {
   coldSeconds: number;

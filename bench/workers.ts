@@ -20,11 +20,8 @@ import { createWorkPool } from '../src/run/worker-pool.ts';
 import { pooledPermutationStage } from '../src/run/pooled-permutations.ts';
 import { createRng } from '../src/shared/random.ts';
 import { FEATURE_NAMES } from '../src/features/index.ts';
+import { argument } from './arguments.ts';
 
-function argument(name: string, fallback: number): number {
-  const i = process.argv.indexOf(name);
-  return i >= 0 ? Number(process.argv[i + 1]) : fallback;
-}
 
 /** The seeded table: subjects alternate between groups; columns 0..3 shifted by 0.4 SD in group 1. */
 export function workerBenchTable(subjects: number, seed = 6): FeatureMatrix {
