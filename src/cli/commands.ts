@@ -50,7 +50,7 @@ const JOBS: OptionSpec = {
   type: 'string',
   value: 'N',
   description: 'worker threads for features and permutations; results are identical for any N',
-  default: 'the number of cores',
+  default: 'the number of cores for large stages; small ones stay in this thread',
 };
 const CACHE: OptionSpec = {
   name: 'cache',
