@@ -22,36 +22,43 @@ export function permutationRanges(B: number, threads: number, chunksPerThread = 
 /**
  * A PermutationStage for evaluateStudyWith that computes the permutations in `pool`; `matrix`
  * and `settings` are the inputs the study was prepared from (each thread prepares its own).
- * Under sequential stopping, ranges are read in index order and the rest are cancelled once
- * the stopping rule is met. The outcome is what runPermutationTest gives in one thread: the
+ * Ranges are handed out in index order, at most two per thread in flight, and read back in
+ * index order; under sequential stopping no new range is handed out once the stopping rule is
+ * met, and the ranges still in flight are awaited (never aborted, so no worker answers a task
+ * the pool has forgotten). The outcome is what runPermutationTest gives in one thread: the
  * statistics computed are replayed through it in index order.
  */
 export function pooledPermutationStage(pool: WorkPool, matrix: FeatureMatrix, settings: EvaluationSettings): PermutationStage {
   return async (study, observed, B, stopAfter, onEach) => {
     const studyId = randomBytes(8).toString('hex');
     const ranges = permutationRanges(B, pool.threads);
-    const abort = new AbortController();
+    const inFlight: Promise<Float64Array[]>[] = [];
     let done = 0;
-    const pending = ranges.map(([from, to]) =>
-      pool.permutations({ studyId, matrix, settings, from, to }, abort.signal).then((stats) => {
-        done += stats.length;
-        onEach(done, B);
-        return stats;
-      }),
-    );
-    pending.forEach((p) => p.catch(() => undefined)); // cancelled ranges reject; their results are not needed
+    const launch = (): void => {
+      const [from, to] = ranges[inFlight.length];
+      inFlight.push(
+        pool.permutations({ studyId, matrix, settings, from, to }).then((stats) => {
+          done += stats.length;
+          onEach(done, B);
+          return stats;
+        }),
+      );
+    };
+    while (inFlight.length < ranges.length && inFlight.length < 2 * pool.threads) launch();
     const computed: Float64Array[] = [];
     let exceedances = 0;
     try {
-      for (const p of pending) {
-        for (const s of await p) {
+      for (let i = 0; i < ranges.length; i++) {
+        const stats = await inFlight[i];
+        for (const s of stats) {
           computed.push(s);
           if (!(s[0] < observed[0])) exceedances++;
           if (stopAfter !== null && exceedances >= stopAfter && computed.length < B) return replay(study.pipeline, observed, computed, B, stopAfter);
         }
+        if (inFlight.length < ranges.length) launch();
       }
     } finally {
-      abort.abort();
+      await Promise.allSettled(inFlight);
     }
     return replay(study.pipeline, observed, computed, B, stopAfter);
   };
