@@ -39,28 +39,30 @@ export function featureOptionsOf(study: Study, recording: Recording): FeatureOpt
 }
 
 /**
- * Runs the tasks in the pool. When tasks fail, the error thrown is that of the earliest
- * failing task in study order (as in one thread): later tasks are cancelled, earlier ones
- * are awaited.
+ * Runs the tasks in the pool, at most two per thread in flight, handed out in study order.
+ * When tasks fail, the error thrown is that of the earliest failing task in study order (as in
+ * one thread): no later task is handed out, and those in flight are awaited (never aborted, so
+ * no worker answers a task the pool has forgotten).
  */
 async function inPool(pool: WorkPool, tasks: RecordingTask[], finish: (i: number, o: RecordingOutcome) => void): Promise<void> {
-  const aborts = tasks.map(() => new AbortController());
+  let next = 0;
   let firstFailed = Infinity;
-  const errors: unknown[] = new Array(tasks.length);
-  await Promise.all(
-    tasks.map((task, i) =>
-      pool.features(task, aborts[i].signal).then(
-        (o) => finish(i, o),
-        (e: unknown) => {
-          if (i >= firstFailed) return;
-          errors[i] = e;
+  let error: unknown;
+  const runFrom = async (): Promise<void> => {
+    while (next < tasks.length && firstFailed === Infinity) {
+      const i = next++;
+      try {
+        finish(i, await pool.features(tasks[i]));
+      } catch (e) {
+        if (i < firstFailed) {
           firstFailed = i;
-          for (let j = i + 1; j < tasks.length; j++) aborts[j].abort();
-        },
-      ),
-    ),
-  );
-  if (firstFailed < Infinity) throw errors[firstFailed];
+          error = e;
+        }
+      }
+    }
+  };
+  await Promise.all(Array.from({ length: Math.min(tasks.length, 2 * pool.threads) }, runFrom));
+  if (firstFailed < Infinity) throw error;
 }
 
 /** One recording's work item with the cells asked for. */
