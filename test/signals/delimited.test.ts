@@ -1,19 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../src/shared/errors.ts';
+import { inputErrorMessage } from '../helpers/errors.ts';
 import { parseDelimited } from '../../src/signals/index.ts';
 
 const col = (column: number | string, start = 0, length: number | null = null) => ({ column, start, length });
 
-function errorOf(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InputError) return error.message;
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
+const errorOf = inputErrorMessage;
 
 /** NaN-aware array view for toEqual. */
 const arr = (v: Float64Array): number[] => Array.from(v);

@@ -6,6 +6,7 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { InputError } from '../../src/shared/errors.ts';
+import { inputErrorMessage } from '../helpers/errors.ts';
 import { parseRecording, readSeries, sniffFormat } from '../../src/signals/index.ts';
 import { buildEdf } from './edf-builder.ts';
 
@@ -13,15 +14,7 @@ const ALL = { column: 1, start: 0, length: null } as const;
 const FIXTURES = join(import.meta.dirname, 'fixtures');
 const utf8 = (s: string): Uint8Array => new TextEncoder().encode(s);
 
-function errorOf(run: () => unknown): string {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof InputError) return error.message;
-    throw error;
-  }
-  throw new Error('expected an InputError');
-}
+const errorOf = inputErrorMessage;
 
 async function asyncErrorOf(run: () => Promise<unknown>): Promise<string> {
   try {

@@ -1,20 +1,12 @@
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { loadStudy } from '../../src/study/index.ts';
-import { InputError } from '../../src/shared/errors.ts';
+import { inputErrorMessage } from '../helpers/errors.ts';
 import { makeFolder, twoGroupStudy } from '../helpers/tmp.ts';
 
 const MINIMAL = 'name: t\ngroups:\n  a: a/*.csv\n  b: b/*.csv\n';
 
-function messageOf(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(InputError);
-    return (e as Error).message;
-  }
-  throw new Error('expected an InputError');
-}
+const messageOf = inputErrorMessage;
 
 describe('loadStudy', () => {
   it('fills every default from the schema for the shortest study file (a name and two globs)', () => {
