@@ -5,7 +5,6 @@ export { parseRecording } from './recording.ts';
 export { parseDelimited } from './delimited.ts';
 export { parseEdf } from './edf.ts';
 export { parseEdfHeader, type EdfHeader, type EdfSignalHeader } from './edf-header.ts';
-export { sampleResolution } from './resolution.ts';
 export { sniffFormat, type SniffedKind } from './sniff.ts';
 export { MISSING_TOKENS } from './sample-cell.ts';
 export { describeSeries, type SeriesSummary } from './describe.ts';

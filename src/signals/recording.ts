@@ -16,7 +16,7 @@ import type { Series, SignalSelection } from './types.ts';
  *   invalid UTF-8 in the first 1024 bytes); UTF-16 text; 24-bit BDF; damaged gzip data;
  *   invalid UTF-8 further on (with its line); and every error of the two parsers.
  * @example parseRecording(new TextEncoder().encode('1\n2\n4\n'), { column: 1, start: 0,
- *   length: null }, 'x.txt') // values [1, 2, 4], format 'text', resolution 1
+ *   length: null }, 'x.txt') // values [1, 2, 4], format 'text'
  */
 export function parseRecording(bytes: Uint8Array, selection: SignalSelection, fileLabel: string): Series {
   const kind = sniffFormat(bytes);

@@ -1,5 +1,4 @@
 import { InputError } from '../shared/errors.ts';
-import { sampleResolution } from './resolution.ts';
 import type { Series, SignalFormat, SignalSelection } from './types.ts';
 
 /** What a reader knows about a whole channel before the start/length selection. */
@@ -12,15 +11,15 @@ export interface ChannelSamples {
 
 /**
  * Cuts the selected run `samples[start, start + length)` out of a channel and describes it
- * as a {@link Series} (missing count, resolution). The returned values are a copy.
+ * as a {@link Series} (with its missing count). The returned values are a copy.
  *
- * Complexity O(k log k) for k selected samples (the resolution sorts a copy).
+ * Complexity O(k) for k selected samples.
  *
  * @throws InputError when start/length are not whole numbers in range, when the run reaches
  *   past the end of the channel, or when the channel holds no samples at all.
  * @example selectSeries({ samples: Float64Array.of(1, NaN, 4, 6), format: 'text', channel: 'x',
  *   sampleRate: null }, { column: 1, start: 1, length: 2 }, 'a.csv')
- *   // values [NaN, 4], missing 1, totalSamples 4, resolution null
+ *   // values [NaN, 4], missing 1, totalSamples 4
  */
 export function selectSeries(channel: ChannelSamples, selection: SignalSelection, fileLabel: string): Series {
   const total = channel.samples.length;
@@ -45,7 +44,6 @@ export function selectSeries(channel: ChannelSamples, selection: SignalSelection
     format: channel.format,
     channel: channel.channel,
     sampleRate: channel.sampleRate,
-    resolution: sampleResolution(values),
   };
 }
 

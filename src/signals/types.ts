@@ -33,8 +33,6 @@ export interface Series {
   channel: string;
   /** EDF: samples per data record / record duration (Hz); text tables: null. */
   sampleRate: number | null;
-  /** Smallest positive difference between distinct values; null when fewer than 2 distinct values. */
-  resolution: number | null;
   /**
    * The file as read by `readSeries`: its size and the SHA-256 (FIPS 180-4, lowercase hex) of
    * exactly the bytes parsed, so a fingerprint never describes other bytes than the samples.

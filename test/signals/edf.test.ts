@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { InputError } from '../../src/shared/errors.ts';
 import { parseEdf, parseEdfHeader, parseRecording } from '../../src/signals/index.ts';
 import { buildEdf, timeKeeping, type EdfSpec, type SignalSpec } from './edf-builder.ts';
+import { dataResolution } from '../../src/features/index.ts';
 
 const ALL = { column: 1, start: 0, length: null } as const;
 
@@ -94,7 +95,7 @@ describe('parseEdf: samples and scaling', () => {
     const s = parseEdf(bytes, { column: 'n', start: 3, length: 6 }, 'e.edf');
     expect(Array.from(s.values)).toEqual([3, 4, 5, 6, 7, 8]);
     expect(s.totalSamples).toBe(12);
-    expect(s.resolution).toBe(1);
+    expect(dataResolution(s.values)).toBe(1);
   });
 
   it('parseRecording recognises EDF by its version field', () => {

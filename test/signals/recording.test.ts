@@ -9,6 +9,7 @@ import { InputError } from '../../src/shared/errors.ts';
 import { inputErrorMessage } from '../helpers/errors.ts';
 import { parseRecording, readSeries, sniffFormat } from '../../src/signals/index.ts';
 import { buildEdf } from './edf-builder.ts';
+import { dataResolution } from '../../src/features/index.ts';
 
 const ALL = { column: 1, start: 0, length: null } as const;
 const FIXTURES = join(import.meta.dirname, 'fixtures');
@@ -151,6 +152,6 @@ describe('doc-comment example', () => {
     const s = parseRecording(utf8('1\n2\n4\n'), ALL, 'x.txt');
     expect(Array.from(s.values)).toEqual([1, 2, 4]);
     expect(s.format).toBe('text');
-    expect(s.resolution).toBe(1);
+    expect(dataResolution(s.values)).toBe(1);
   });
 });
