@@ -3,7 +3,7 @@
  * in and out, so that it runs the same in the main thread and in a worker thread.
  */
 import { computeGridFeatures, FEATURE_DEFINITIONS_VERSION, type Cell, type CellFeatures, type FeatureOptions } from '../features/index.ts';
-import { describeSeries, readSeries, type SeriesSummary, type SignalFormat } from '../signals/index.ts';
+import { describeSeries, readSeries, type Series, type SeriesSummary, type SignalFormat } from '../signals/index.ts';
 import type { SignalSettings } from '../study/index.ts';
 import { cacheKey, openFeatureCache, type FeatureCache } from './feature-cache.ts';
 import { cellId, gridsCovering } from './cell-groups.ts';
@@ -38,6 +38,8 @@ export interface RecordingOutcome {
   computed: Cell[];
   /** True when the recording's samples were read and parsed (false when everything was cached). */
   parsed: boolean;
+  /** True when `facts` were computed from the samples (false when they came from the cache). */
+  factsComputed: boolean;
   warnings: string[];
 }
 
@@ -81,30 +83,25 @@ export async function recordingFeatures(task: RecordingTask): Promise<RecordingO
     const facts = cache.read<RecordingFacts>('recordings', factsCacheKey(sha256, task.signal));
     const found = task.cells.map((c) => cache.read<CellFeatures>('cells', cellCacheKey(sha256, task.signal, task.options, c)));
     if (facts && facts.sha256 === sha256 && found.every((c) => c !== null)) {
-      return { facts, cells: found as CellFeatures[], computed: [], parsed: false, warnings: cache.warnings };
+      return { facts, cells: found as CellFeatures[], computed: [], parsed: false, factsComputed: false, warnings: cache.warnings };
     }
-    return computeAndStore(task, cache, { sha256, found });
+    return computeAndStore(task, cache, { sha256, facts, found });
   }
   return computeAndStore(task, null, null);
 }
 
-/** Cells looked up before reading, valid only if the bytes parsed have this SHA-256. */
+/** Facts and cells looked up before reading, valid only if the bytes parsed have this SHA-256. */
 interface EarlierLookup {
   sha256: string;
+  facts: RecordingFacts | null;
   found: (CellFeatures | null)[];
 }
 
 async function computeAndStore(task: RecordingTask, cache: FeatureCache | null, earlier: EarlierLookup | null): Promise<RecordingOutcome> {
   const series = await readSeries(task.path, task.signal);
   const sha256 = series.source?.sha256 ?? sha256File(task.path);
-  const facts: RecordingFacts = {
-    sha256,
-    format: series.format,
-    channel: series.channel,
-    sampleRate: series.sampleRate,
-    totalSamples: series.totalSamples,
-    summary: describeSeries(series.values),
-  };
+  const known = earlier?.sha256 === sha256 && earlier.facts?.sha256 === sha256 ? earlier.facts : null;
+  const facts = known ?? factsOf(series, sha256);
   const byId = new Map<string, CellFeatures>();
   const missing: Cell[] = [];
   for (const [i, cell] of task.cells.entries()) {
@@ -116,17 +113,29 @@ async function computeAndStore(task: RecordingTask, cache: FeatureCache | null, 
   for (const grid of gridsCovering(missing)) {
     for (const computed of computeGridFeatures(series.values, grid, task.options)) byId.set(cellId(computed), computed);
   }
-  return { facts, cells: task.cells.map((c) => byId.get(cellId(c))!), computed: missing, parsed: true, warnings: cache?.warnings ?? [] };
+  return { facts, cells: task.cells.map((c) => byId.get(cellId(c))!), computed: missing, parsed: true, factsComputed: known === null, warnings: cache?.warnings ?? [] };
+}
+
+/** What is learnt about a recording from its parsed series (the summary sorts a copy: O(n log n)). */
+function factsOf(series: Series, sha256: string): RecordingFacts {
+  return {
+    sha256,
+    format: series.format,
+    channel: series.channel,
+    sampleRate: series.sampleRate,
+    totalSamples: series.totalSamples,
+    summary: describeSeries(series.values),
+  };
 }
 
 /**
  * Writes what `recordingFeatures` computed for `task` into the cache: the cells in
- * outcome.computed and, when the file was parsed, its facts. Nothing for a task without cache.
+ * outcome.computed and, when they were computed, the recording's facts. Nothing for a task without cache.
  */
 export function storeOutcome(task: RecordingTask, outcome: RecordingOutcome, cache: FeatureCache): void {
   const computed = new Set(outcome.computed.map(cellId));
   for (const cell of outcome.cells) {
     if (computed.has(cellId(cell))) cache.write('cells', cellCacheKey(outcome.facts.sha256, task.signal, task.options, cell), cell);
   }
-  if (outcome.parsed) cache.write('recordings', factsCacheKey(outcome.facts.sha256, task.signal), outcome.facts);
+  if (outcome.factsComputed) cache.write('recordings', factsCacheKey(outcome.facts.sha256, task.signal), outcome.facts);
 }

@@ -10,7 +10,8 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { loadStudy } from '../../src/study/index.ts';
 import { runStudy } from '../../src/run/index.ts';
 import { cacheKey, exactJson, parseExactJson, pruneCache, summariseCache, clearCache, openFeatureCache } from '../../src/run/feature-cache.ts';
-import type { Cell } from '../../src/features/index.ts';
+import type { Cell, FeatureOptions } from '../../src/features/index.ts';
+import { recordingFeatures, storeOutcome, type RecordingTask } from '../../src/run/recording-features.ts';
 import { seriesText, twoGroupStudy } from '../helpers/tmp.ts';
 
 const STUDY = 'name: t\nseed: 5\ngroups:\n  a: a/*.csv\n  b: b/*.csv\ngrid: {order: [3, 4], delay: [1, 2], scale: [1, 2]}\nevaluation: {folds: 2, repeats: 1, permutations: 0}\n';
@@ -110,6 +111,23 @@ describe('feature cache', () => {
     await features(dir, 'again');
     expect(clearCache(cache).entries).toBe(36);
     expect(() => clearCache(join(dir, 'a'))).toThrow(/is not a patternfold cache folder/);
+  });
+
+  it('a rerun that computes new cells takes the recording facts from the cache instead of summarising the samples again', async () => {
+    const dir = studyFolder();
+    const options: FeatureOptions = { ties: 'appearance', jitterRepeats: 1, scaleForm: 'coarse', seed: 1, minWindowsPerPattern: 5 };
+    const task = (cells: Cell[], cacheDir: string | null): RecordingTask => ({ path: join(dir, 'a', 'a1.csv'), signal: { column: 1, start: 0, length: null }, options, cells, cacheDir });
+    const cacheDir = join(dir, 'cache');
+    const first = await recordingFeatures(task([{ order: 3, delay: 1, scale: 1 }], cacheDir));
+    expect(first.factsComputed).toBe(true);
+    storeOutcome(task([{ order: 3, delay: 1, scale: 1 }], cacheDir), first, openFeatureCache(cacheDir));
+    const widened = [{ order: 3, delay: 1, scale: 1 }, { order: 3, delay: 1, scale: 2 }];
+    const second = await recordingFeatures(task(widened, cacheDir));
+    expect(second.parsed).toBe(true);
+    expect(second.factsComputed).toBe(false);
+    expect(second.computed).toEqual([{ order: 3, delay: 1, scale: 2 }]);
+    const uncached = await recordingFeatures(task(widened, null));
+    expect(second.facts).toEqual(uncached.facts); // reference: the facts summarised from the samples
   });
 });
 
