@@ -17,7 +17,7 @@ import { classifierFor, prepareStudy } from '../src/evaluate/evaluate.ts';
 import { runPermutationTest } from '../src/evaluate/permutation.ts';
 import type { EvaluationSettings, FeatureMatrix } from '../src/evaluate/index.ts';
 import { createWorkPool } from '../src/run/worker-pool.ts';
-import { pooledPermutationStage } from '../src/run/pooled-permutations.ts';
+import { pooledPermutationStage } from '../src/run/permutation-stage.ts';
 import { createRng } from '../src/shared/random.ts';
 import { FEATURE_NAMES } from '../src/features/index.ts';
 import { argument } from './arguments.ts';

@@ -11,4 +11,4 @@ export { benjaminiHochberg } from './fdr.ts';
 export { midRanks } from './ranks.ts';
 export { rocCurve, type RocPoint } from './roc.ts';
 export { createForest, createLogistic } from './classifiers/index.ts';
-export { permutedStatistics, permutedStatisticsRange, permutationPValue, runPermutationTest, type PermutablePipeline } from './permutation.ts';
+export { permutedStatistics, permutedStatisticsRange, permutationPValue, runPermutationTest, type PermutablePipeline, type PermutationRun } from './permutation.ts';

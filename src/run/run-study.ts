@@ -9,11 +9,11 @@ import type { RecordingInfo } from './read-cohort.ts';
 import { computeRecordings, IN_THREAD, type FeatureWork } from './feature-work.ts';
 import { lazyPool, type LazyPool, type WorkPool } from './worker-pool.ts';
 import { featureWorkIsLarge, permutationWorkIsLarge } from './work-size.ts';
-import { pooledPermutationStage } from './pooled-permutations.ts';
+import { inThreadPermutationStage, pooledPermutationStage } from './permutation-stage.ts';
 import type { Cell } from '../features/index.ts';
 import { studyWarnings } from './warnings.ts';
 import { toArrowBytes, toCsvText } from './csv.ts';
-import { compareGroups, evaluateStudy, evaluateStudyWith, type EvaluationResult, type FeatureMatrix, type UnivariateRow } from '../evaluate/index.ts';
+import { compareGroups, evaluateStudyWith, type EvaluationResult, type FeatureMatrix, type UnivariateRow } from '../evaluate/index.ts';
 import { renderReport } from '../report/index.ts';
 import { deriveSeed } from '../shared/random.ts';
 import { recordingMatrix, subjectMatrix } from './feature-matrix.ts';
@@ -111,9 +111,8 @@ async function computeStatistics(study: Study, stage: FeatureStage, pool: WorkPo
   const recordings = recordingMatrix(study, stage.rows);
   const subjects = subjectMatrix(recordings);
   const settings = { ...study.evaluation, seed: deriveSeed(study.seed, 'evaluation') };
-  const evaluation = pool
-    ? await evaluateStudyWith(recordings, settings, pooledPermutationStage(pool, recordings, settings), onProgress)
-    : evaluateStudy(recordings, settings, onProgress);
+  const permute = pool ? pooledPermutationStage(pool, recordings, settings) : inThreadPermutationStage;
+  const evaluation = await evaluateStudyWith(recordings, settings, permute, onProgress);
   return { evaluation, univariate: compareGroups(subjects), subjects, recordings };
 }
 

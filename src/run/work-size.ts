@@ -2,7 +2,7 @@
  * When worker threads pay off. Starting a thread that loads the TypeScript sources costs
  * about a second of CPU, so with the default --jobs a stage runs in this thread unless its
  * work is clearly larger; an explicit --jobs N always uses N threads. The result does not
- * depend on the choice (see src/run/pooled-permutations.ts and src/run/feature-work.ts).
+ * depend on the choice (see src/run/permutation-stage.ts and src/run/feature-work.ts).
  */
 import { statSync } from 'node:fs';
 import type { Study } from '../study/index.ts';

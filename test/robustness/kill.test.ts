@@ -148,3 +148,28 @@ describe('a run stopped with SIGTERM', () => {
     expect(existsSync(runs) ? readdirSync(runs) : []).toEqual([]);
   });
 });
+
+describe('a run interrupted with Ctrl-C (SIGINT) during permutations in one thread', () => {
+  it('stops within a permutation or so, not after the whole test, and exits with 130 (128 + 2)', async () => {
+    const dir = twoGroupStudy(STUDY.replace('permutations: 30', 'permutations: 2000'), 6, 300);
+    const out = join(dir, 'out');
+    const child = spawn(process.execPath, [BIN, 'run', join(dir, 'study.yaml'), '--out', out, '--jobs', '1'], { cwd: dir });
+    let err = '';
+    let sent = false;
+    child.stderr.on('data', (chunk: Buffer) => {
+      err += chunk.toString();
+      if (!sent && /permutations: 10\//.test(err)) {
+        sent = true;
+        child.kill('SIGINT');
+      }
+    });
+    const code = await new Promise<number | null>((resolve) => child.once('exit', (c) => resolve(c)));
+    expect(code).toBe(130);
+    expect(err).toMatch(/interrupted \(SIGINT\)/);
+    // progress lines come at 10, 100, 1000 permutations: a loop that ignored the signal until
+    // the end of the test would have printed the 1000 line first
+    expect(err).not.toMatch(/permutations: 1000\//);
+    expect(existsSync(out)).toBe(false);
+    expect(leftovers(dir)).toEqual([]);
+  }, 60000);
+});

@@ -11,7 +11,7 @@ import { loadStudy } from '../../src/study/index.ts';
 import { runStudy } from '../../src/run/index.ts';
 import { computeShard, parseShard, shardItems } from '../../src/run/shard.ts';
 import { createWorkPool } from '../../src/run/worker-pool.ts';
-import { permutationRanges, pooledPermutationStage } from '../../src/run/pooled-permutations.ts';
+import { inThreadPermutationStage, permutationRanges, pooledPermutationStage } from '../../src/run/permutation-stage.ts';
 import { classifierFor, prepareStudy } from '../../src/evaluate/evaluate.ts';
 import { runPermutationTest } from '../../src/evaluate/permutation.ts';
 import type { EvaluationSettings, FeatureMatrix } from '../../src/evaluate/index.ts';
@@ -46,7 +46,7 @@ describe('worker threads', () => {
     }
   }, 60000);
 
-  it('the pooled permutation stage equals runPermutationTest in one thread, also when it stops early', async () => {
+  it('the pooled and the in-thread permutation stages equal runPermutationTest, also when it stops early', async () => {
     // two groups of 8 subjects, 3 columns of one cell, no group difference (so stopping happens)
     const rng = createRng(3);
     const n = 16;
@@ -66,11 +66,19 @@ describe('worker threads', () => {
         const observed = study.pipeline.statistics(study.subjects.labels);
         const stopAfter = stopEarly ? 3 : null;
         const alone = runPermutationTest(study.pipeline, observed, 40, stopAfter);
-        const pooled = await pooledPermutationStage(pool, matrix, settings)(study, observed, 40, stopAfter, () => undefined);
         if (stopEarly) expect(alone.stoppedEarly).toBe(true);
-        expect(pooled.stoppedEarly).toBe(alone.stoppedEarly);
-        expect(pooled.headline).toEqual(alone.headline);
-        expect(pooled.nullStatistics.map((s) => Array.from(s))).toEqual(alone.nullStatistics.map((s) => Array.from(s)));
+        // the in-thread stage lets the event loop run between permutations (so Ctrl-C is served)
+        let turns = 0;
+        const ticker = setInterval(() => turns++, 0);
+        const inThread = await inThreadPermutationStage(study, observed, 40, stopAfter, () => undefined);
+        clearInterval(ticker);
+        expect(turns).toBeGreaterThan(0);
+        const pooled = await pooledPermutationStage(pool, matrix, settings)(study, observed, 40, stopAfter, () => undefined);
+        for (const run of [pooled, inThread]) {
+          expect(run.stoppedEarly).toBe(alone.stoppedEarly);
+          expect(run.headline).toEqual(alone.headline);
+          expect(run.nullStatistics.map((s) => Array.from(s))).toEqual(alone.nullStatistics.map((s) => Array.from(s)));
+        }
       }
     } finally {
       await pool.close();
