@@ -103,6 +103,13 @@ export function outOfFoldProbabilities(
   return out;
 }
 
+/** Each row's label: the label of the subject it belongs to. Example: ofRow [0, 0, 1], labels [1, 0] -> [1, 1, 0]. */
+export function rowLabelsOf(design: Design, subjectLabels: Uint8Array): Uint8Array {
+  const rowLabels = new Uint8Array(design.nRows);
+  for (let r = 0; r < design.nRows; r++) rowLabels[r] = subjectLabels[design.ofRow[r]];
+  return rowLabels;
+}
+
 /**
  * Mean of row values per subject (a subject with several recordings gets the mean of their
  * out-of-fold probabilities, so the AUC counts subjects, not recordings).
@@ -147,8 +154,7 @@ export function crossValidate(
   seed: number,
 ): CrossValidation {
   const repeats = subjectFolds.length;
-  const rowLabels = new Uint8Array(design.nRows);
-  for (let r = 0; r < design.nRows; r++) rowLabels[r] = subjectLabels[design.ofRow[r]];
+  const rowLabels = rowLabelsOf(design, subjectLabels);
   const aucByRepeat = new Float64Array(repeats);
   const subjectProbabilities = new Float64Array(repeats * design.nSubjects);
   let total = 0;

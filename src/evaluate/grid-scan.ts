@@ -15,7 +15,7 @@
 import { aucFromScores } from './auc.ts';
 import type { Classifier } from './classifier.ts';
 import { stratifiedSubjectFolds } from './cv.ts';
-import { foldRows, crossValidate, predictFold, subjectMeans } from './crossval.ts';
+import { foldRows, crossValidate, predictFold, rowLabelsOf, subjectMeans } from './crossval.ts';
 import type { Design } from './crossval.ts';
 import type { FeatureColumn } from './types.ts';
 import { deriveSeed } from '../shared/random.ts';
@@ -156,8 +156,7 @@ export function nestedBestCell(
   const innerFolds = feasibleInnerFolds(subjectLabels, subjectFolds, folds);
   if (innerFolds < 2) return null;
   const repeats = subjectFolds.length;
-  const rowLabels = new Uint8Array(design.nRows);
-  for (let r = 0; r < design.nRows; r++) rowLabels[r] = subjectLabels[design.ofRow[r]];
+  const rowLabels = rowLabelsOf(design, subjectLabels);
   const timesSelected = new Int32Array(cells.length);
   const aucByRepeat = new Float64Array(repeats);
   let done = 0;

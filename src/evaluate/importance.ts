@@ -9,7 +9,7 @@
 import { aucFromScores } from './auc.ts';
 import type { Classifier } from './classifier.ts';
 import { rowFolds } from './cv.ts';
-import { foldRows, subjectMeans } from './crossval.ts';
+import { foldRows, rowLabelsOf, subjectMeans } from './crossval.ts';
 import type { Design } from './crossval.ts';
 import { applyPreprocessing, fitPreprocessing } from './preprocess.ts';
 import type { FeatureColumn } from './types.ts';
@@ -36,8 +36,7 @@ export function permutationImportance(
   const nCols = design.nCols;
   const nRows = design.nRows;
   const all = Int32Array.from({ length: nCols }, (_, i) => i);
-  const rowLabels = new Uint8Array(nRows);
-  for (let r = 0; r < nRows; r++) rowLabels[r] = subjectLabels[design.ofRow[r]];
+  const rowLabels = rowLabelsOf(design, subjectLabels);
   const importance = new Float64Array(nCols);
   for (let rep = 0; rep < subjectFolds.length; rep++) {
     const splits = foldRows(rowFolds(subjectFolds[rep], design.ofRow), folds);
