@@ -6,6 +6,7 @@ import type { TopLevelSpec } from 'vega-lite';
 import type { UnivariateRow } from '../types.ts';
 import { displayText } from '../display-text.ts';
 import { formatCell, isPresent } from '../format.ts';
+import { heatTileLayers } from './heat-tiles.ts';
 
 function cellSortKey(r: UnivariateRow): number {
   return (r.order * 1000 + r.delay) * 1000 + r.scale;
@@ -41,23 +42,13 @@ export function effectHeatmapSpec(rows: UnivariateRow[], alpha: number, groupNam
       y: { field: 'feature', type: 'nominal', sort: featureOrder, title: null, axis: { labelLimit: 320 } },
     },
     layer: [
-      {
-        transform: [{ filter: 'datum.g === null' }],
-        mark: { type: 'rect', stroke: 'white', strokeWidth: 0.5, color: '#d9d9d9' },
-      },
-      {
-        transform: [{ filter: 'datum.g !== null' }],
-        mark: { type: 'rect', stroke: 'white', strokeWidth: 0.5 },
-        encoding: {
-          color: {
-            field: 'g',
-            type: 'quantitative',
-            title,
-            scale: { scheme: 'blueorange', domain: [-maxAbs, maxAbs], domainMid: 0 },
-            legend: { orient: 'bottom', direction: 'horizontal', titleLimit: 400, gradientLength: 220 },
-          },
-        },
-      },
+      ...heatTileLayers('g', 0.5, {
+        field: 'g',
+        type: 'quantitative',
+        title,
+        scale: { scheme: 'blueorange', domain: [-maxAbs, maxAbs], domainMid: 0 },
+        legend: { orient: 'bottom', direction: 'horizontal', titleLimit: 400, gradientLength: 220 },
+      }),
       { mark: { type: 'text', fontSize: 12, baseline: 'middle' }, encoding: { text: { field: 'mark', type: 'nominal' } } },
     ],
   } as TopLevelSpec;

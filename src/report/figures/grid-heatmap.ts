@@ -5,6 +5,7 @@
 import type { TopLevelSpec } from 'vega-lite';
 import type { GridScanCell } from '../types.ts';
 import { formatNumber, isPresent } from '../format.ts';
+import { heatTileLayers } from './heat-tiles.ts';
 
 /**
  * Builds the vega-lite specification of the per-cell score heatmap.
@@ -35,22 +36,7 @@ export function gridHeatmapSpec(cells: GridScanCell[], alpha: number): TopLevelS
         y: { field: 'scale', type: 'ordinal', title: 'scale s' },
       },
       layer: [
-        {
-          transform: [{ filter: 'datum.auc === null' }],
-          mark: { type: 'rect', stroke: 'white', strokeWidth: 1, color: '#d9d9d9' },
-        },
-        {
-          transform: [{ filter: 'datum.auc !== null' }],
-          mark: { type: 'rect', stroke: 'white', strokeWidth: 1 },
-          encoding: {
-            color: {
-              field: 'auc',
-              type: 'quantitative',
-              title: 'CV AUC',
-              scale: { scheme: 'blues', domain: [0.5, 1], clamp: true },
-            },
-          },
-        },
+        ...heatTileLayers('auc', 1, { field: 'auc', type: 'quantitative', title: 'CV AUC', scale: { scheme: 'blues', domain: [0.5, 1], clamp: true } }),
         {
           mark: { type: 'text', fontSize: 11 },
           encoding: {
