@@ -4,9 +4,10 @@
  *
  * The time model counts model fits: (1 + B) · repeats · folds · (1 + cells) for the permutation
  * tests (headline and grid scan), plus the nested cross-validation, repeats · folds · (cells ·
- * folds + 1). A forest fit costs about trees · subjects · 1 µs and a logistic fit about
- * 0.2 ms on this project's reference machine (2 cores; figures in docs/classifiers.md),
- * so the estimate is good to a factor of a few — enough to tell minutes from days.
+ * folds + 1). A forest fit costs about trees · subjects · 0.7 µs (5–7 ms for 100 trees on
+ * 77–96 subjects × 60 columns, docs/classifiers.md) and a logistic fit about 0.2 ms on this
+ * project's reference machine (2 cores), so the estimate is good to a factor of a few —
+ * enough to tell minutes from days.
  */
 import { factorial } from '../features/index.ts';
 import type { Study } from '../study/index.ts';
@@ -26,7 +27,7 @@ export function estimateStatisticsCost(study: Study): CostEstimate {
   const subjects = new Set(study.recordings.map((r) => r.subject)).size;
   const scanned = cells >= 2 ? cells : 0;
   const fits = (1 + permutations) * repeats * folds * (1 + scanned) + (scanned ? repeats * folds * (scanned * folds + 1) : 0);
-  const perFit = classifier === 'forest' ? trees * Math.max(subjects, 10) * 1e-6 : 2e-4;
+  const perFit = classifier === 'forest' ? trees * Math.max(subjects, 10) * 0.7e-6 : 2e-4;
   return { fits, seconds: fits * perFit };
 }
 
