@@ -67,12 +67,13 @@ describe('worker threads', () => {
         const stopAfter = stopEarly ? 3 : null;
         const alone = runPermutationTest(study.pipeline, observed, 40, stopAfter);
         if (stopEarly) expect(alone.stoppedEarly).toBe(true);
-        // the in-thread stage lets the event loop run between permutations (so Ctrl-C is served)
-        let turns = 0;
-        const ticker = setInterval(() => turns++, 0);
-        const inThread = await inThreadPermutationStage(study, observed, 40, stopAfter, () => undefined);
-        clearInterval(ticker);
-        expect(turns).toBeGreaterThan(0);
+        // the in-thread stage lets the event loop run between permutations (so Ctrl-C is served):
+        // a callback queued before it starts has run by the time the last permutation reports
+        let queuedRan = false;
+        let ranBeforeLast = false;
+        setImmediate(() => (queuedRan = true));
+        const inThread = await inThreadPermutationStage(study, observed, 40, stopAfter, () => (ranBeforeLast = queuedRan));
+        expect(ranBeforeLast).toBe(true);
         const pooled = await pooledPermutationStage(pool, matrix, settings)(study, observed, 40, stopAfter, () => undefined);
         for (const run of [pooled, inThread]) {
           expect(run.stoppedEarly).toBe(alone.stoppedEarly);
