@@ -10,6 +10,7 @@ const BENCHES: Record<string, () => Promise<unknown>> = {
   rerun: async () => (await import('./rerun.ts')).benchRerun(),
   workers: async () => (await import('./workers.ts')).benchWorkers(),
   memory: async () => (await import('./memory.ts')).benchMemory(),
+  parse: async () => (await import('./parse.ts')).benchParse(),
 };
 
 const only = process.env.BENCH_ONLY?.split(',').map((s) => s.trim());

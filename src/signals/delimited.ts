@@ -1,20 +1,12 @@
 import { InputError } from '../shared/errors.ts';
-import { detectDelimiter, fieldAt, splitFields, type Delimiter } from './delimiter.ts';
+import { fieldAt, splitFields } from './delimiter.ts';
+import { readColumnFast } from './fast-column.ts';
+import { lineKind } from './line-kind.ts';
 import { quoteFound } from './quote-found.ts';
 import { readSampleCell } from './sample-cell.ts';
-import { selectSeries } from './selection.ts';
+import { selectSeries, type ChannelSamples } from './selection.ts';
+import { describeDelimiter, SNIFF_LINES, tableLayout, type TableLayout } from './table-layout.ts';
 import type { Series, SignalSelection } from './types.ts';
-
-/** Data lines looked at to choose the delimiter. */
-const SNIFF_LINES = 100;
-/** Columns named in an error message before the list is cut. */
-const LISTED_COLUMNS = 20;
-
-/** One table column chosen by the selection: 0-based index and the name shown to users. */
-interface ChosenColumn {
-  index: number;
-  name: string;
-}
 
 /**
  * Reads one column of a text table (a decoded string, no I/O) as a series.
@@ -25,7 +17,7 @@ interface ChosenColumn {
  *   editor shows them.
  * - A line whose first non-blank character is `#` is a comment and is skipped anywhere.
  * - The delimiter (tab, semicolon, comma or runs of whitespace; none for one value per
- *   line) is chosen from the first 100 data lines by {@link detectDelimiter}.
+ *   line) is chosen from the first 100 data lines by detectDelimiter.
  * - The first non-comment, non-blank line is a header when any of its cells is not a
  *   number, a missing-value token or an infinite value; otherwise it is data.
  * - Missing samples: an empty cell, `NaN`, `nan`, `NA`, `na` or `null` gives NaN (counted,
@@ -37,7 +29,11 @@ interface ChosenColumn {
  *   Caution: a one-column file written with decimal commas (`1,5` per line) is read as two
  *   comma-separated columns; save it with semicolons or decimal points.
  *
- * Complexity O(characters) time; O(lines) memory for the line index.
+ * The rows are read by {@link readColumnFast} (one pass over char codes, Clinger's exact
+ * fast path for numbers); any file it cannot decide, every rejected file included, is read
+ * by {@link parseDelimitedGeneral}, so values and messages are those of the general rules.
+ *
+ * Complexity O(characters) time; O(rows) memory.
  *
  * @throws InputError, naming the file, the 1-based line and the column, for: no data rows;
  *   a cell that is not a number (its text quoted, cut to 40 characters, control characters
@@ -47,112 +43,56 @@ interface ChosenColumn {
  *   length: null }, 'a.csv') // values [1.5, NaN, 2.5], missing 1, channel 'value'
  */
 export function parseDelimited(text: string, selection: SignalSelection, fileLabel: string): Series {
-  const lines = (text.charCodeAt(0) === 0xfeff ? text.slice(1) : text).split(/\r\n|\r|\n/);
+  const body = withoutByteOrderMark(text);
+  const channel = readColumnFast(body, selection.column, fileLabel) ?? readColumnGeneral(body, selection.column, fileLabel);
+  return selectSeries(channel, selection, fileLabel);
+}
+
+/**
+ * The general reader: the same result as {@link parseDelimited} by the same rules, built on
+ * line strings and cell strings (split, trim, a regular expression per cell, Number()). It
+ * decides every file the fast reader leaves, and is the reference the fast reader is tested
+ * against. 5 to 10 times slower on plain numeric tables (bench/parse.ts).
+ *
+ * Complexity O(characters) time; O(lines) memory for the line array.
+ *
+ * @throws InputError as {@link parseDelimited}.
+ * @example parseDelimitedGeneral('v\n1\n\n3\n', { column: 1, start: 0, length: null }, 'a.txt')
+ *   // values [1, NaN, 3], missing 1, channel 'v'
+ */
+export function parseDelimitedGeneral(text: string, selection: SignalSelection, fileLabel: string): Series {
+  return selectSeries(readColumnGeneral(withoutByteOrderMark(text), selection.column, fileLabel), selection, fileLabel);
+}
+
+function withoutByteOrderMark(text: string): string {
+  return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+}
+
+/** The general reader's work before the start/length selection. */
+function readColumnGeneral(text: string, wanted: number | string, fileLabel: string): ChannelSamples {
+  const lines = text.split(/\r\n|\r|\n/);
   const dataLines = contentLineIndices(lines);
   if (dataLines.length === 0) {
     throw new InputError(`${fileLabel}: no samples — the file is empty or holds only comments and blank lines; give a table of numbers`);
   }
-  const delimiter = detectDelimiter(dataLines.slice(0, SNIFF_LINES).map((i) => lines[i]));
-  const allowDecimalComma = delimiter === ';' || delimiter === '\t';
-  const firstFields = splitFields(lines[dataLines[0]], delimiter);
-  const header = isHeaderRow(firstFields, allowDecimalComma) ? firstFields : null;
-  const column = chooseColumn(selection.column, header, firstFields.length, delimiter, fileLabel);
-  const rows = header ? dataLines.slice(1) : dataLines;
+  const layout = tableLayout(dataLines.slice(0, SNIFF_LINES).map((i) => lines[i]), wanted, fileLabel);
+  const rows = layout.header ? dataLines.slice(1) : dataLines;
   if (rows.length === 0) {
     throw new InputError(`${fileLabel}: no samples — the file has a header row (line ${dataLines[0] + 1}) but no data rows; add the data below it`);
   }
-  const samples = readColumn(lines, rows[0], rows[rows.length - 1], column, delimiter, allowDecimalComma, fileLabel);
-  return selectSeries({ samples, format: 'text', channel: column.name, sampleRate: null }, selection, fileLabel);
-}
-
-type LineKind = 'blank' | 'comment' | 'content';
-
-/** Classifies a line by its first non-blank character, without allocating. */
-function lineKind(line: string): LineKind {
-  for (let i = 0; i < line.length; i++) {
-    const c = line.charCodeAt(i);
-    if (c === 0x23) return 'comment';
-    if (c !== 0x20 && c !== 0x09 && c !== 0x0b && c !== 0x0c && c !== 0xa0 && c !== 0xfeff) return 'content';
-  }
-  return 'blank';
+  const samples = readColumn(lines, rows[0], rows[rows.length - 1], layout, fileLabel);
+  return { samples, format: 'text', channel: layout.column.name, sampleRate: null };
 }
 
 /** 0-based indices of the lines that are neither comments nor blank. */
 function contentLineIndices(lines: readonly string[]): number[] {
   const out: number[] = [];
-  for (let i = 0; i < lines.length; i++) if (lineKind(lines[i]) === 'content') out.push(i);
+  for (let i = 0; i < lines.length; i++) if (lineKind(lines[i], 0, lines[i].length) === 'content') out.push(i);
   return out;
 }
 
-function isHeaderRow(fields: readonly string[], allowDecimalComma: boolean): boolean {
-  return fields.some((cell) => readSampleCell(cell, allowDecimalComma).kind === 'text');
-}
-
-function describeDelimiter(delimiter: Delimiter): string {
-  const names: Record<Delimiter, string> = {
-    '\t': 'tab',
-    ';': 'semicolon',
-    ',': 'comma',
-    whitespace: 'whitespace',
-    none: 'one value per line',
-  };
-  return delimiter === 'none' ? 'read as one value per line' : `fields split on ${names[delimiter]}`;
-}
-
-function listColumns(header: readonly string[] | null, width: number, delimiter: Delimiter): string {
-  const where = describeDelimiter(delimiter);
-  if (!header) return `available columns: 1 to ${width} (no header row; ${where})`;
-  const shown = header.slice(0, LISTED_COLUMNS).map((name, i) => `${i + 1} ${quoteFound(name)}`);
-  const more = header.length > LISTED_COLUMNS ? `, … (${header.length} in all)` : '';
-  return `available columns: ${shown.join(', ')}${more} (${where})`;
-}
-
-function chooseColumn(
-  wanted: number | string,
-  header: readonly string[] | null,
-  width: number,
-  delimiter: Delimiter,
-  fileLabel: string,
-): ChosenColumn {
-  const nameOf = (index: number): string => (header && header[index] !== '' ? header[index] : `column ${index + 1}`);
-  if (typeof wanted === 'number') {
-    if (!Number.isSafeInteger(wanted) || wanted < 1) {
-      throw new InputError(`${fileLabel}: column must be a whole number >= 1 or a header name, got ${String(wanted)} — ${listColumns(header, width, delimiter)}`);
-    }
-    if (wanted > width) {
-      throw new InputError(`${fileLabel}: column ${wanted} is past the end of the rows, which have ${width} field${width === 1 ? '' : 's'} — ${listColumns(header, width, delimiter)}`);
-    }
-    return { index: wanted - 1, name: nameOf(wanted - 1) };
-  }
-  const name = wanted.trim();
-  if (!header) {
-    throw new InputError(`${fileLabel}: column ${quoteFound(name)} is a name, but the file has no header row — give a column number; ${listColumns(header, width, delimiter)}`);
-  }
-  const index = findHeaderName(header, name);
-  if (index < 0) {
-    throw new InputError(`${fileLabel}: no column named ${quoteFound(name)} in the header row — ${listColumns(header, width, delimiter)}`);
-  }
-  return { index, name: nameOf(index) };
-}
-
-/** Exact match first; otherwise a case-insensitive match when exactly one column has it. */
-function findHeaderName(header: readonly string[], name: string): number {
-  const exact = header.indexOf(name);
-  if (exact >= 0) return exact;
-  const lower = name.toLowerCase();
-  const loose = header.flatMap((h, i) => (h.toLowerCase() === lower ? [i] : []));
-  return loose.length === 1 ? loose[0] : -1;
-}
-
-function readColumn(
-  lines: readonly string[],
-  first: number,
-  last: number,
-  column: ChosenColumn,
-  delimiter: Delimiter,
-  allowDecimalComma: boolean,
-  fileLabel: string,
-): Float64Array {
+function readColumn(lines: readonly string[], first: number, last: number, layout: TableLayout, fileLabel: string): Float64Array {
+  const { delimiter, allowDecimalComma, column } = layout;
   const samples = new Float64Array(last - first + 1);
   let n = 0;
   let commaLine = 0;
@@ -160,7 +100,7 @@ function readColumn(
   const columnText = `column ${column.index + 1}${column.name === `column ${column.index + 1}` ? '' : ` (${quoteFound(column.name)})`}`;
   for (let i = first; i <= last; i++) {
     const line = lines[i];
-    const kind = lineKind(line);
+    const kind = lineKind(line, 0, line.length);
     if (kind === 'comment') continue;
     if (kind === 'blank') {
       samples[n++] = NaN;

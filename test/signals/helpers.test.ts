@@ -43,7 +43,7 @@ describe('doc-comment examples of the internal helpers', () => {
   it('selectSeries', () => {
     const s = selectSeries({ samples: Float64Array.of(1, NaN, 4, 6), format: 'text', channel: 'x', sampleRate: null }, { column: 1, start: 1, length: 2 }, 'a.csv');
     expect(Array.from(s.values)).toEqual([NaN, 4]);
-    expect(s).toMatchObject({ missing: 1, totalSamples: 4, resolution: null, channel: 'x' });
+    expect(s).toMatchObject({ missing: 1, totalSamples: 4, channel: 'x' });
   });
 });
 
