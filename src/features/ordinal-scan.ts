@@ -296,18 +296,36 @@ function nonZero(table: Float64Array): number {
   return count;
 }
 
-/** Edges from counts indexed by source·m + rank of the newest sample (delay 1, appearance). */
+/**
+ * Edges from counts indexed by source·m + rank of the newest sample (delay 1, appearance).
+ * The next window's code is the code of the source's last m-1 samples plus rank·(m-1)!
+ * (the incremental code of countOrdinalPatterns), so each edge is one table look-up.
+ */
 function edgesByRank(table: Float64Array, order: number): TransitionEdges {
   const edges = allocateEdges(nonZero(table));
-  const scratch = new Int32Array(2 * order);
+  const suffix = suffixCodes(order);
+  const newestWeight = factorial(order - 1);
   for (let cell = 0, e = 0; cell < table.length; cell++) {
     if (table[cell] === 0) continue;
     const source = Math.floor(cell / order);
     edges.source[e] = source;
-    edges.target[e] = successorCode(source, order, cell - source * order, scratch);
+    edges.target[e] = suffix[source] + (cell - source * order) * newestWeight;
     edges.count[e++] = table[cell];
   }
   return edges;
+}
+
+/** suffixCodes(m)[code]: code (order m-1) of the window `code` without its oldest sample; built once per order. */
+const SUFFIX_CODES: Int32Array[] = [];
+
+function suffixCodes(order: number): Int32Array {
+  if (!SUFFIX_CODES[order]) {
+    const scratch = new Int32Array(2 * order);
+    // the successor with the newest sample ranked lowest has digit 0 in the newest place,
+    // so its code is the suffix code itself
+    SUFFIX_CODES[order] = Int32Array.from({ length: factorial(order) }, (_, code) => successorCode(code, order, 0, scratch));
+  }
+  return SUFFIX_CODES[order];
 }
 
 /** Edges from a dense source x target matrix. */
@@ -343,27 +361,31 @@ function edgesFromKeys(keys: Uint32Array | Float64Array, space: number): Transit
 /**
  * Code of the window after `code` (delay 1) whose newest sample ranks above `rank` of the
  * m-1 kept samples; the allocation-free twin of successorPatternCode. O(m^2).
+ * `scratch` holds 2m integers: the window's ranks in [0, m), the next window's in [m, 2m).
  */
 function successorCode(code: number, order: number, rank: number, scratch: Int32Array): number {
-  // position[i] = rank of sample i within the window, built by insertion as in ordinalPatternFromCode
-  const position = scratch;
+  // scratch[i] = rank of sample i within the window, built by insertion as in ordinalPatternFromCode
+  let rest = code;
   for (let k = 0; k < order; k++) {
-    const below = Math.floor(code / factorial(k)) % (k + 1);
-    for (let i = 0; i < k; i++) if (position[i] >= below) position[i]++;
-    position[k] = below;
+    const below = rest % (k + 1);
+    rest = (rest - below) / (k + 1);
+    for (let i = 0; i < k; i++) if (scratch[i] >= below) scratch[i]++;
+    scratch[k] = below;
   }
   // drop sample 0, append the new sample at `rank`
-  const next = scratch.subarray(order);
+  const next = order;
   for (let i = 1; i < order; i++) {
-    const kept = position[i] > position[0] ? position[i] - 1 : position[i];
-    next[i - 1] = kept >= rank ? kept + 1 : kept;
+    const kept = scratch[i] > scratch[0] ? scratch[i] - 1 : scratch[i];
+    scratch[next + i - 1] = kept >= rank ? kept + 1 : kept;
   }
-  next[order - 1] = rank;
+  scratch[next + order - 1] = rank;
   let result = 0;
+  let weight = 1;
   for (let k = 1; k < order; k++) {
     let below = 0;
-    for (let j = 0; j < k; j++) if (next[j] < next[k]) below++;
-    result += below * factorial(k);
+    for (let j = 0; j < k; j++) if (scratch[next + j] < scratch[next + k]) below++;
+    weight *= k;
+    result += below * weight;
   }
   return result;
 }
