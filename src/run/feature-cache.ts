@@ -44,12 +44,32 @@ export function cacheKey(parts: unknown): string {
   return sha256Text(canonicalJson(parts));
 }
 
+/**
+ * Keys of a family of entries that share every part but one: `keyFamily(shared, name)(v)`
+ * equals `cacheKey({ ...shared, [name]: v })`, with the canonical JSON of the shared parts
+ * built once (a rerun looks up thousands of cells of one recording).
+ */
+export function keyFamily(shared: Record<string, unknown>, name: string): (varying: unknown) => string {
+  const entries = sortedEntries({ ...shared, [name]: null });
+  const at = entries.findIndex(([k]) => k === name);
+  const part = (list: [string, unknown][]) => list.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`);
+  const before = part(entries.slice(0, at));
+  const after = part(entries.slice(at + 1));
+  const prefix = `{${before.map((p) => `${p},`).join('')}${JSON.stringify(name)}:`;
+  const suffix = `${after.map((p) => `,${p}`).join('')}}`;
+  return (varying) => sha256Text(`${prefix}${canonicalJson(varying)}${suffix}`);
+}
+
+function sortedEntries(value: Record<string, unknown>): [string, unknown][] {
+  const entries = Object.entries(value).filter(([, v]) => v !== undefined);
+  entries.sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+  return entries;
+}
+
 function canonicalJson(value: unknown): string {
   if (Array.isArray(value)) return `[${value.map(canonicalJson).join(',')}]`;
   if (value !== null && typeof value === 'object') {
-    const entries = Object.entries(value as Record<string, unknown>).filter(([, v]) => v !== undefined);
-    entries.sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-    return `{${entries.map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
+    return `{${sortedEntries(value as Record<string, unknown>).map(([k, v]) => `${JSON.stringify(k)}:${canonicalJson(v)}`).join(',')}}`;
   }
   return JSON.stringify(value);
 }
@@ -68,6 +88,7 @@ export function exactJson(value: unknown): string {
 
 /** Inverse of {@link exactJson}. */
 export function parseExactJson<T>(text: string): T {
+  if (!text.includes('"$n"')) return JSON.parse(text) as T; // no tagged numbers: no reviver needed
   return JSON.parse(text, (_key, v: unknown) => {
     if (v !== null && typeof v === 'object' && !Array.isArray(v)) {
       const o = v as Record<string, unknown>;

@@ -5,7 +5,7 @@
 import { computeGridFeatures, FEATURE_DEFINITIONS_VERSION, type Cell, type CellFeatures, type FeatureOptions } from '../features/index.ts';
 import { describeSeries, readSeries, type Series, type SeriesSummary, type SignalFormat } from '../signals/index.ts';
 import type { SignalSettings } from '../study/index.ts';
-import { cacheKey, openFeatureCache, type FeatureCache } from './feature-cache.ts';
+import { cacheKey, keyFamily, openFeatureCache, type FeatureCache } from './feature-cache.ts';
 import { cellId, gridsCovering } from './cell-groups.ts';
 import { sha256File } from './hash.ts';
 
@@ -44,23 +44,27 @@ export interface RecordingOutcome {
 }
 
 /**
- * Cache key of one cell of one recording: file content, signal selection, cell, tie rule,
+ * Cache keys of the cells of one recording: file content, signal selection, cell, tie rule,
  * jitter draws and seed (only under the jitter rule, the only one that draws), scale form,
- * the flagging threshold and FEATURE_DEFINITIONS_VERSION. Returns a SHA-256 hex string.
+ * the flagging threshold and FEATURE_DEFINITIONS_VERSION, as SHA-256 hex strings. The parts
+ * shared by every cell are put in canonical form once.
  */
-export function cellCacheKey(sha256: string, signal: SignalSettings, options: FeatureOptions, cell: Cell): string {
+export function cellKeyMaker(sha256: string, signal: SignalSettings, options: FeatureOptions): (cell: Cell) => string {
   const jitter = options.ties === 'jitter';
-  return cacheKey({
-    definitions: FEATURE_DEFINITIONS_VERSION,
-    file: sha256,
-    signal: { column: signal.column, start: signal.start, length: signal.length },
-    cell: { order: cell.order, delay: cell.delay, scale: cell.scale },
-    ties: options.ties,
-    jitterRepeats: jitter ? options.jitterRepeats : null,
-    jitterSeed: jitter ? options.seed : null,
-    scaleForm: options.scaleForm,
-    minWindowsPerPattern: options.minWindowsPerPattern,
-  });
+  const keyOf = keyFamily(
+    {
+      definitions: FEATURE_DEFINITIONS_VERSION,
+      file: sha256,
+      signal: { column: signal.column, start: signal.start, length: signal.length },
+      ties: options.ties,
+      jitterRepeats: jitter ? options.jitterRepeats : null,
+      jitterSeed: jitter ? options.seed : null,
+      scaleForm: options.scaleForm,
+      minWindowsPerPattern: options.minWindowsPerPattern,
+    },
+    'cell',
+  );
+  return (cell) => keyOf({ order: cell.order, delay: cell.delay, scale: cell.scale });
 }
 
 /** Cache key of the facts of one recording (file content and signal selection). */
@@ -81,7 +85,8 @@ export async function recordingFeatures(task: RecordingTask): Promise<RecordingO
   if (cache) {
     const sha256 = sha256File(task.path);
     const facts = cache.read<RecordingFacts>('recordings', factsCacheKey(sha256, task.signal));
-    const found = task.cells.map((c) => cache.read<CellFeatures>('cells', cellCacheKey(sha256, task.signal, task.options, c)));
+    const keyOf = cellKeyMaker(sha256, task.signal, task.options);
+    const found = task.cells.map((c) => cache.read<CellFeatures>('cells', keyOf(c)));
     if (facts && facts.sha256 === sha256 && found.every((c) => c !== null)) {
       return { facts, cells: found as CellFeatures[], computed: [], parsed: false, factsComputed: false, warnings: cache.warnings };
     }
@@ -104,9 +109,10 @@ async function computeAndStore(task: RecordingTask, cache: FeatureCache | null, 
   const facts = known ?? factsOf(series, sha256);
   const byId = new Map<string, CellFeatures>();
   const missing: Cell[] = [];
+  const keyOf = cellKeyMaker(sha256, task.signal, task.options);
   for (const [i, cell] of task.cells.entries()) {
     // the file may have changed between hashing and reading: then look the cells up again
-    const hit = earlier?.sha256 === sha256 ? earlier.found[i] : (cache?.read<CellFeatures>('cells', cellCacheKey(sha256, task.signal, task.options, cell)) ?? null);
+    const hit = earlier?.sha256 === sha256 ? earlier.found[i] : (cache?.read<CellFeatures>('cells', keyOf(cell)) ?? null);
     if (hit) byId.set(cellId(hit), hit);
     else missing.push(cell);
   }
@@ -134,8 +140,9 @@ function factsOf(series: Series, sha256: string): RecordingFacts {
  */
 export function storeOutcome(task: RecordingTask, outcome: RecordingOutcome, cache: FeatureCache): void {
   const computed = new Set(outcome.computed.map(cellId));
+  const keyOf = cellKeyMaker(outcome.facts.sha256, task.signal, task.options);
   for (const cell of outcome.cells) {
-    if (computed.has(cellId(cell))) cache.write('cells', cellCacheKey(outcome.facts.sha256, task.signal, task.options, cell), cell);
+    if (computed.has(cellId(cell))) cache.write('cells', keyOf(cell), cell);
   }
   if (outcome.factsComputed) cache.write('recordings', factsCacheKey(outcome.facts.sha256, task.signal), outcome.facts);
 }

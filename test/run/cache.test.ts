@@ -9,7 +9,8 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { loadStudy } from '../../src/study/index.ts';
 import { runStudy } from '../../src/run/index.ts';
-import { cacheKey, exactJson, parseExactJson, pruneCache, summariseCache, clearCache, openFeatureCache } from '../../src/run/feature-cache.ts';
+import { cacheKey, exactJson, keyFamily, parseExactJson, pruneCache, summariseCache, clearCache, openFeatureCache } from '../../src/run/feature-cache.ts';
+import fc from 'fast-check';
 import type { Cell, FeatureOptions } from '../../src/features/index.ts';
 import { recordingFeatures, storeOutcome, type RecordingTask } from '../../src/run/recording-features.ts';
 import { seriesText, twoGroupStudy } from '../helpers/tmp.ts';
@@ -141,6 +142,16 @@ describe('cache entry encoding', () => {
   it('keys do not depend on the order of fields', () => {
     expect(cacheKey({ a: 1, b: { c: [1, 2], d: 'x' } })).toBe(cacheKey({ b: { d: 'x', c: [1, 2] }, a: 1 }));
     expect(cacheKey({ a: 1 })).not.toBe(cacheKey({ a: 2 }));
+  });
+
+  it('a key family gives exactly the key of the merged parts, wherever the varying part sorts', () => {
+    const value = fc.oneof(fc.integer(), fc.string(), fc.constant(null), fc.array(fc.integer(), { maxLength: 3 }));
+    fc.assert(
+      fc.property(fc.dictionary(fc.string({ minLength: 1, maxLength: 6 }), value, { maxKeys: 5 }), fc.string({ minLength: 1, maxLength: 6 }), value, (shared, name, varying) => {
+        const rest = Object.fromEntries(Object.entries(shared).filter(([k]) => k !== name));
+        expect(keyFamily(rest, name)(varying)).toBe(cacheKey({ ...rest, [name]: varying }));
+      }),
+    );
   });
 
   it('an entry under another key is not served (a copied or renamed entry file)', () => {
