@@ -3,11 +3,10 @@
  * in and out, so that it runs the same in the main thread and in a worker thread.
  */
 import { computeGridFeatures, FEATURE_DEFINITIONS_VERSION, type Cell, type CellFeatures, type FeatureOptions } from '../features/index.ts';
-import { describeSeries, readSeries, type Series, type SeriesSummary, type SignalFormat } from '../signals/index.ts';
+import { describeSeries, readRecordingFile, seriesOfFile, type RecordingFile, type Series, type SeriesSummary, type SignalFormat } from '../signals/index.ts';
 import type { SignalSettings } from '../study/index.ts';
 import { cacheKey, keyFamily, openFeatureCache, type FeatureCache } from './feature-cache.ts';
 import { cellId, gridsCovering } from './cell-groups.ts';
-import { sha256File } from './hash.ts';
 
 /** What is learnt about a recording when it is read (cached per file content and selection). */
 export interface RecordingFacts {
@@ -74,7 +73,8 @@ export function factsCacheKey(sha256: string, signal: SignalSettings): string {
 
 /**
  * Features of one recording at the task's cells: cells found in the cache are taken from it,
- * the rest are computed from the recording (read once, released on return). Nothing is
+ * the rest are computed from the recording (its bytes read and fingerprinted once, parsed
+ * only when a cell is missing, and released as soon as they are no longer needed). Nothing is
  * written here: the caller stores the new cells with {@link storeOutcome} once the whole
  * stage has succeeded, so that a failing run leaves no trace. With everything cached the
  * file is only hashed (SHA-256), never parsed.
@@ -82,44 +82,46 @@ export function factsCacheKey(sha256: string, signal: SignalSettings): string {
  */
 export async function recordingFeatures(task: RecordingTask): Promise<RecordingOutcome> {
   const cache = task.cacheDir === null ? null : openFeatureCache(task.cacheDir);
-  if (cache) {
-    const sha256 = sha256File(task.path);
-    const facts = cache.read<RecordingFacts>('recordings', factsCacheKey(sha256, task.signal));
-    const keyOf = cellKeyMaker(sha256, task.signal, task.options);
-    const found = task.cells.map((c) => cache.read<CellFeatures>('cells', keyOf(c)));
-    if (facts && facts.sha256 === sha256 && found.every((c) => c !== null)) {
-      return { facts, cells: found as CellFeatures[], computed: [], parsed: false, factsComputed: false, warnings: cache.warnings };
-    }
-    return computeAndStore(task, cache, { sha256, facts, found });
+  const lookup = cache ? await lookUp(task, cache) : { file: await readRecordingFile(task.path), facts: null, found: [] };
+  if (lookup.facts && lookup.found.length === task.cells.length && lookup.found.every((c) => c !== null)) {
+    return { facts: lookup.facts, cells: lookup.found as CellFeatures[], computed: [], parsed: false, factsComputed: false, warnings: cache?.warnings ?? [] };
   }
-  return computeAndStore(task, null, null);
+  return computeMissing(task, lookup, cache?.warnings ?? []);
 }
 
-/** Facts and cells looked up before reading, valid only if the bytes parsed have this SHA-256. */
-interface EarlierLookup {
-  sha256: string;
+/** The file as read, and what the cache holds for its fingerprint (facts null and no cells without a cache). */
+interface Lookup {
+  /** Released (set to null) once parsed, so the bytes do not stay alive while features are counted. */
+  file: RecordingFile | null;
   facts: RecordingFacts | null;
   found: (CellFeatures | null)[];
 }
 
-async function computeAndStore(task: RecordingTask, cache: FeatureCache | null, earlier: EarlierLookup | null): Promise<RecordingOutcome> {
-  const series = await readSeries(task.path, task.signal);
-  const sha256 = series.source?.sha256 ?? sha256File(task.path);
-  const known = earlier?.sha256 === sha256 && earlier.facts?.sha256 === sha256 ? earlier.facts : null;
-  const facts = known ?? factsOf(series, sha256);
+/** Reads the file once and looks its facts and cells up by its fingerprint. */
+async function lookUp(task: RecordingTask, cache: FeatureCache): Promise<Lookup> {
+  const file = await readRecordingFile(task.path);
+  const facts = cache.read<RecordingFacts>('recordings', factsCacheKey(file.sha256, task.signal));
+  const keyOf = cellKeyMaker(file.sha256, task.signal, task.options);
+  return { file, facts: facts?.sha256 === file.sha256 ? facts : null, found: task.cells.map((c) => cache.read<CellFeatures>('cells', keyOf(c))) };
+}
+
+/** Parses the file and computes the cells the lookup did not find. */
+function computeMissing(task: RecordingTask, lookup: Lookup, warnings: string[]): RecordingOutcome {
+  const { sha256 } = lookup.file!;
+  const series = seriesOfFile(lookup.file!, task.signal);
+  lookup.file = null;
+  const facts = lookup.facts ?? factsOf(series, sha256);
   const byId = new Map<string, CellFeatures>();
   const missing: Cell[] = [];
-  const keyOf = cellKeyMaker(sha256, task.signal, task.options);
   for (const [i, cell] of task.cells.entries()) {
-    // the file may have changed between hashing and reading: then look the cells up again
-    const hit = earlier?.sha256 === sha256 ? earlier.found[i] : (cache?.read<CellFeatures>('cells', keyOf(cell)) ?? null);
+    const hit = lookup.found[i] ?? null;
     if (hit) byId.set(cellId(hit), hit);
     else missing.push(cell);
   }
   for (const grid of gridsCovering(missing)) {
     for (const computed of computeGridFeatures(series.values, grid, task.options)) byId.set(cellId(computed), computed);
   }
-  return { facts, cells: task.cells.map((c) => byId.get(cellId(c))!), computed: missing, parsed: true, factsComputed: known === null, warnings: cache?.warnings ?? [] };
+  return { facts, cells: task.cells.map((c) => byId.get(cellId(c))!), computed: missing, parsed: true, factsComputed: lookup.facts === null, warnings };
 }
 
 /** What is learnt about a recording from its parsed series (the summary sorts a copy: O(n log n)). */

@@ -1,6 +1,6 @@
 // Intake stage: one recording file -> one series. Re-exports only.
 export type { SignalSelection, Series, SignalFormat } from './types.ts';
-export { readSeries } from './read.ts';
+export { readRecordingFile, readSeries, seriesOfFile, type RecordingFile } from './read.ts';
 export { parseRecording } from './recording.ts';
 export { parseDelimited } from './delimited.ts';
 export { parseEdf } from './edf.ts';

@@ -36,9 +36,31 @@ const OS_REASONS: Record<string, string> = {
  * @example await readSeries('data/s01.csv', { column: 'ecg', start: 0, length: 5000 })
  */
 export async function readSeries(path: string, selection: SignalSelection): Promise<Series> {
+  return seriesOfFile(await readRecordingFile(path), selection);
+}
+
+/** A recording file's bytes, read once, with their SHA-256 (FIPS 180-4, lowercase hex). */
+export interface RecordingFile {
+  path: string;
+  bytes: Uint8Array;
+  sha256: string;
+}
+
+/**
+ * Reads a recording file's bytes and fingerprints them, with the checks of {@link readSeries}
+ * (symbolic links followed; a file that changes while it is read refused), so that a caller
+ * can look its fingerprint up (in a cache) before deciding to parse the same bytes.
+ * @throws InputError as readSeries for a missing, unreadable or changing file.
+ */
+export async function readRecordingFile(path: string): Promise<RecordingFile> {
   const bytes = await readBytes(path);
-  const series = parseRecording(bytes, selection, path);
-  return { ...series, source: { bytes: bytes.length, sha256: createHash('sha256').update(bytes).digest('hex') } };
+  return { path, bytes, sha256: createHash('sha256').update(bytes).digest('hex') };
+}
+
+/** The series of a file read by {@link readRecordingFile}; throws the parsers' InputErrors. */
+export function seriesOfFile(file: RecordingFile, selection: SignalSelection): Series {
+  const series = parseRecording(file.bytes, selection, file.path);
+  return { ...series, source: { bytes: file.bytes.length, sha256: file.sha256 } };
 }
 
 async function readBytes(path: string): Promise<Uint8Array> {
