@@ -10,6 +10,7 @@
  * as absent, with a warning, so that it is recomputed and rewritten, never used.
  */
 import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync, utimesSync, writeFileSync } from 'node:fs';
+import { createHash } from 'node:crypto';
 import { join, resolve } from 'node:path';
 import { InputError } from '../shared/errors.ts';
 import { sha256Text } from './hash.ts';
@@ -20,7 +21,7 @@ const HEADER = 'patternfold-cache 1';
 export const CACHE_MARKER = 'patternfold-cache.json';
 /** Cache Directory Tagging Specification (Ford 2004): backup tools skip a folder holding it [M]. */
 const CACHEDIR_TAG = 'Signature: 8a477f597d28d172789f06886806bc55\n# This folder is a patternfold feature cache; it can be deleted at any time.\n';
-const KINDS = ['cells', 'recordings'] as const;
+const KINDS = ['cells', 'recordings', 'series'] as const;
 export type EntryKind = (typeof KINDS)[number];
 
 /** A cache folder, opened for reading and writing entries. */
@@ -31,6 +32,10 @@ export interface FeatureCache {
   read<T>(kind: EntryKind, key: string): T | null;
   /** Writes an entry atomically (replacing any earlier one). */
   write(kind: EntryKind, key: string, payload: unknown): void;
+  /** The verified samples of a series entry, or null when it is absent or corrupt (then a warning is recorded). */
+  readSamples(key: string): Float64Array | null;
+  /** Writes a series entry (the samples as binary64 bytes) atomically. */
+  writeSamples(key: string, values: Float64Array): void;
   /** Warnings about corrupt entries met so far. */
   warnings: string[];
 }
@@ -86,6 +91,30 @@ export function exactJson(value: unknown): string {
   });
 }
 
+/**
+ * Samples as the payload of a series entry: the values' bytes, IEEE 754 binary64,
+ * little-endian whatever the machine, so every double (NaN and -0 included) comes back bit
+ * for bit and an entry reads the same on any machine. O(n) copy.
+ * @example bytesToSamples(samplesToBytes(Float64Array.of(1.5, NaN))) // Float64Array [1.5, NaN]
+ */
+export function samplesToBytes(values: Float64Array): Uint8Array {
+  if (LITTLE_ENDIAN) return new Uint8Array(values.buffer.slice(values.byteOffset, values.byteOffset + values.byteLength));
+  const bytes = new Uint8Array(values.length * 8);
+  const view = new DataView(bytes.buffer);
+  for (let i = 0; i < values.length; i++) view.setFloat64(i * 8, values[i], true);
+  return bytes;
+}
+
+/** Inverse of {@link samplesToBytes}; null when the byte count is not a multiple of 8. */
+export function bytesToSamples(bytes: Uint8Array): Float64Array | null {
+  if (bytes.length % 8 !== 0) return null;
+  if (LITTLE_ENDIAN) return new Float64Array(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.length));
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.length);
+  return Float64Array.from({ length: bytes.length / 8 }, (_, i) => view.getFloat64(i * 8, true));
+}
+
+const LITTLE_ENDIAN = new Uint8Array(Float64Array.of(1).buffer)[7] === 0x3f;
+
 /** Inverse of {@link exactJson}. */
 export function parseExactJson<T>(text: string): T {
   if (!text.includes('"$n"')) return JSON.parse(text) as T; // no tagged numbers: no reviver needed
@@ -113,44 +142,63 @@ export function openFeatureCache(dir: string): FeatureCache {
     dir: root,
     warnings,
     read<T>(kind: EntryKind, key: string): T | null {
-      const path = entryPath(root, kind, key);
-      let text: string;
+      const body = readVerified(kind, key);
+      if (body === null) return null;
       try {
-        text = readFileSync(path, 'utf8');
+        return parseExactJson<T>(body.toString('utf8'));
       } catch {
-        return null;
-      }
-      const payload = verifiedPayload(text, key);
-      if (payload === null) {
-        warnings.push(`cache entry ${path} is corrupt (its checksum does not match) — recomputed and rewritten`);
-        return null;
-      }
-      try {
-        const value = parseExactJson<T>(payload);
-        touch(path);
-        return value;
-      } catch {
-        warnings.push(`cache entry ${path} is not readable JSON — recomputed and rewritten`);
+        warnings.push(`cache entry ${entryPath(root, kind, key)} is not readable JSON — recomputed and rewritten`);
         return null;
       }
     },
     write(kind: EntryKind, key: string, payload: unknown): void {
-      if (!ready) ensureCacheFolder(root);
-      ready = true;
-      const body = exactJson(payload);
-      writeFileAtomic(entryPath(root, kind, key), `${HEADER} ${key} ${sha256Text(body)}\n${body}`);
+      writeEntry(kind, key, Buffer.from(exactJson(payload), 'utf8'));
+    },
+    readSamples(key: string): Float64Array | null {
+      const body = readVerified('series', key);
+      const values = body === null ? null : bytesToSamples(body);
+      if (body !== null && values === null) warnings.push(`cache entry ${entryPath(root, 'series', key)} does not hold whole doubles — recomputed and rewritten`);
+      return values;
+    },
+    writeSamples(key: string, values: Float64Array): void {
+      writeEntry('series', key, samplesToBytes(values));
     },
   };
+
+  /** The payload of an entry whose header names `key` and whose checksum matches; null (and a warning when it exists) otherwise. Marks the entry used. */
+  function readVerified(kind: EntryKind, key: string): Buffer | null {
+    const path = entryPath(root, kind, key);
+    let bytes: Buffer;
+    try {
+      bytes = readFileSync(path);
+    } catch {
+      return null;
+    }
+    const body = verifiedPayload(bytes, key);
+    if (body === null) {
+      warnings.push(`cache entry ${path} is corrupt (its checksum does not match) — recomputed and rewritten`);
+      return null;
+    }
+    touch(path);
+    return body;
+  }
+
+  function writeEntry(kind: EntryKind, key: string, body: Uint8Array): void {
+    if (!ready) ensureCacheFolder(root);
+    ready = true;
+    const header = Buffer.from(`${HEADER} ${key} ${createHash('sha256').update(body).digest('hex')}\n`, 'latin1');
+    writeFileAtomic(entryPath(root, kind, key), Buffer.concat([header, body]));
+  }
 }
 
-/** The payload of an entry when its header names `key` and its checksum matches, else null. */
-function verifiedPayload(text: string, key: string): string | null {
-  const newline = text.indexOf('\n');
+/** The payload of an entry when its header names `key` and its checksum (SHA-256 of the payload bytes) matches, else null. */
+function verifiedPayload(bytes: Buffer, key: string): Buffer | null {
+  const newline = bytes.indexOf(0x0a);
   if (newline < 0) return null;
-  const [magic, version, entryKey, checksum, ...rest] = text.slice(0, newline).split(' ');
+  const [magic, version, entryKey, checksum, ...rest] = bytes.toString('latin1', 0, newline).split(' ');
   if (`${magic} ${version}` !== HEADER || entryKey !== key || rest.length > 0) return null;
-  const body = text.slice(newline + 1);
-  return sha256Text(body) === checksum ? body : null;
+  const body = bytes.subarray(newline + 1);
+  return createHash('sha256').update(body).digest('hex') === checksum ? body : null;
 }
 
 /** Marks use of an entry, so that pruning by age removes what has not been used. */
@@ -203,7 +251,7 @@ function forEachEntry(root: string, visit: (path: string, kind: EntryKind, size:
  */
 export function summariseCache(dir: string): CacheSummary {
   const root = resolve(dir);
-  const summary: CacheSummary = { dir: root, exists: existsSync(root), entries: { cells: 0, recordings: 0 }, bytes: 0, oldest: null, newest: null };
+  const summary: CacheSummary = { dir: root, exists: existsSync(root), entries: { cells: 0, recordings: 0, series: 0 }, bytes: 0, oldest: null, newest: null };
   if (!summary.exists) return summary;
   forEachEntry(root, (_path, kind, size, mtime) => {
     summary.entries[kind]++;
@@ -248,5 +296,5 @@ export function clearCache(dir: string): { entries: number; bytes: number } {
   requireCacheFolder(root, 'clear');
   const before = summariseCache(root);
   for (const kind of KINDS) rmSync(join(root, kind), { recursive: true, force: true });
-  return { entries: before.entries.cells + before.entries.recordings, bytes: before.bytes };
+  return { entries: before.entries.cells + before.entries.recordings + before.entries.series, bytes: before.bytes };
 }

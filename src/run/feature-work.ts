@@ -22,7 +22,16 @@ export interface FeatureWork {
   pool: WorkPool | null;
   /** Called once per recording with the cells actually computed (not taken from the cache). */
   onComputed?: (recordingId: string, cells: Cell[]) => void;
+  /** Bytes of parsed samples held for the series cache (default SERIES_KEPT_BYTES). */
+  seriesBudgetBytes?: number;
 }
+
+/**
+ * Parsed samples held for the series cache until the stage succeeds (entries are written
+ * only then). Beyond this many bytes in one stage, the remaining recordings' samples are not
+ * cached, so memory stays bounded; their reruns parse the files again.
+ */
+export const SERIES_KEPT_BYTES = 64 * 2 ** 20;
 
 /** This thread, no cache. */
 export const IN_THREAD: FeatureWork = { cacheDir: null, pool: null };
@@ -88,8 +97,14 @@ export async function computeRecordings(
   const results: RecordingResult[] = new Array(items.length);
   const tasks = items.map((item) => recordingTask(study, item.recording, item.cells, work.cacheDir));
   let done = 0;
+  let seriesBytes = 0;
   const finish = (i: number, outcome: RecordingOutcome): void => {
     const { recording } = items[i];
+    if (outcome.series) {
+      // parsed samples wait for the end of the stage to be cached, within a fixed budget
+      seriesBytes += outcome.series.byteLength;
+      if (seriesBytes > (work.seriesBudgetBytes ?? SERIES_KEPT_BYTES)) outcome.series = null;
+    }
     results[i] = { info: { recording, ...outcome.facts }, outcome };
     work.onComputed?.(recording.id, outcome.computed);
     onProgress?.(++done, items.length);

@@ -39,6 +39,12 @@ export interface RecordingOutcome {
   parsed: boolean;
   /** True when `facts` were computed from the samples (false when they came from the cache). */
   factsComputed: boolean;
+  /**
+   * The samples as parsed, for the series cache entry (so that a rerun that adds cells does
+   * not parse the file again); null without a cache, when nothing was parsed, or when the
+   * caller dropped them to bound memory (see computeRecordings).
+   */
+  series: Float64Array | null;
   warnings: string[];
 }
 
@@ -66,6 +72,11 @@ export function cellKeyMaker(sha256: string, signal: SignalSettings, options: Fe
   return (cell) => keyOf({ order: cell.order, delay: cell.delay, scale: cell.scale });
 }
 
+/** Cache key of the parsed samples of one recording (file content and signal selection). */
+export function seriesCacheKey(sha256: string, signal: SignalSettings): string {
+  return cacheKey({ series: 1, file: sha256, signal: { column: signal.column, start: signal.start, length: signal.length } });
+}
+
 /** Cache key of the facts of one recording (file content and signal selection). */
 export function factsCacheKey(sha256: string, signal: SignalSettings): string {
   return cacheKey({ facts: 1, file: sha256, signal: { column: signal.column, start: signal.start, length: signal.length } });
@@ -82,35 +93,41 @@ export function factsCacheKey(sha256: string, signal: SignalSettings): string {
  */
 export async function recordingFeatures(task: RecordingTask): Promise<RecordingOutcome> {
   const cache = task.cacheDir === null ? null : openFeatureCache(task.cacheDir);
-  const lookup = cache ? await lookUp(task, cache) : { file: await readRecordingFile(task.path), facts: null, found: [] };
+  const lookup = cache ? await lookUp(task, cache) : { file: await readRecordingFile(task.path), facts: null, found: [], samples: null };
   if (lookup.facts && lookup.found.length === task.cells.length && lookup.found.every((c) => c !== null)) {
-    return { facts: lookup.facts, cells: lookup.found as CellFeatures[], computed: [], parsed: false, factsComputed: false, warnings: cache?.warnings ?? [] };
+    return { facts: lookup.facts, cells: lookup.found as CellFeatures[], computed: [], parsed: false, factsComputed: false, series: null, warnings: cache?.warnings ?? [] };
   }
-  return computeMissing(task, lookup, cache?.warnings ?? []);
+  return computeMissing(task, lookup, cache);
 }
 
-/** The file as read, and what the cache holds for its fingerprint (facts null and no cells without a cache). */
+/** The file as read, and what the cache holds for its fingerprint (nothing without a cache). */
 interface Lookup {
   /** Released (set to null) once parsed, so the bytes do not stay alive while features are counted. */
   file: RecordingFile | null;
   facts: RecordingFacts | null;
   found: (CellFeatures | null)[];
+  /** The samples from the series entry, looked up only when a cell is missing and the facts are known. */
+  samples: Float64Array | null;
 }
 
-/** Reads the file once and looks its facts and cells up by its fingerprint. */
+/** Reads the file once and looks its facts, cells and (when a cell is missing) samples up by its fingerprint. */
 async function lookUp(task: RecordingTask, cache: FeatureCache): Promise<Lookup> {
   const file = await readRecordingFile(task.path);
-  const facts = cache.read<RecordingFacts>('recordings', factsCacheKey(file.sha256, task.signal));
+  const stored = cache.read<RecordingFacts>('recordings', factsCacheKey(file.sha256, task.signal));
+  const facts = stored?.sha256 === file.sha256 ? stored : null;
   const keyOf = cellKeyMaker(file.sha256, task.signal, task.options);
-  return { file, facts: facts?.sha256 === file.sha256 ? facts : null, found: task.cells.map((c) => cache.read<CellFeatures>('cells', keyOf(c))) };
+  const found = task.cells.map((c) => cache.read<CellFeatures>('cells', keyOf(c)));
+  const samples = facts && found.some((c) => c === null) ? cache.readSamples(seriesCacheKey(file.sha256, task.signal)) : null;
+  return { file, facts, found, samples: samples && samples.length === facts!.summary.length ? samples : null };
 }
 
-/** Parses the file and computes the cells the lookup did not find. */
-function computeMissing(task: RecordingTask, lookup: Lookup, warnings: string[]): RecordingOutcome {
+/** Parses the file (unless its samples were cached) and computes the cells the lookup did not find. */
+function computeMissing(task: RecordingTask, lookup: Lookup, cache: FeatureCache | null): RecordingOutcome {
   const { sha256 } = lookup.file!;
-  const series = seriesOfFile(lookup.file!, task.signal);
+  const parsed = lookup.samples === null || lookup.facts === null ? seriesOfFile(lookup.file!, task.signal) : null;
   lookup.file = null;
-  const facts = lookup.facts ?? factsOf(series, sha256);
+  const values = parsed?.values ?? lookup.samples!;
+  const facts = lookup.facts ?? factsOf(parsed!, sha256);
   const byId = new Map<string, CellFeatures>();
   const missing: Cell[] = [];
   for (const [i, cell] of task.cells.entries()) {
@@ -119,9 +136,17 @@ function computeMissing(task: RecordingTask, lookup: Lookup, warnings: string[])
     else missing.push(cell);
   }
   for (const grid of gridsCovering(missing)) {
-    for (const computed of computeGridFeatures(series.values, grid, task.options)) byId.set(cellId(computed), computed);
+    for (const computed of computeGridFeatures(values, grid, task.options)) byId.set(cellId(computed), computed);
   }
-  return { facts, cells: task.cells.map((c) => byId.get(cellId(c))!), computed: missing, parsed: true, factsComputed: lookup.facts === null, warnings };
+  return {
+    facts,
+    cells: task.cells.map((c) => byId.get(cellId(c))!),
+    computed: missing,
+    parsed: parsed !== null,
+    factsComputed: lookup.facts === null,
+    series: parsed !== null && cache !== null ? values : null,
+    warnings: cache?.warnings ?? [],
+  };
 }
 
 /** What is learnt about a recording from its parsed series (the summary sorts a copy: O(n log n)). */
@@ -146,5 +171,6 @@ export function storeOutcome(task: RecordingTask, outcome: RecordingOutcome, cac
   for (const cell of outcome.cells) {
     if (computed.has(cellId(cell))) cache.write('cells', keyOf(cell), cell);
   }
+  if (outcome.series) cache.writeSamples(seriesCacheKey(outcome.facts.sha256, task.signal), outcome.series);
   if (outcome.factsComputed) cache.write('recordings', factsCacheKey(outcome.facts.sha256, task.signal), outcome.facts);
 }

@@ -61,7 +61,7 @@ function numbers(out: string): unknown {
 
 /**
  * Every entry of the feature cache beside the study verifies: its header's checksum is the
- * SHA-256 (FIPS 180-4, node:crypto) of its payload. Temporary files (dot names) are ignored.
+ * SHA-256 (FIPS 180-4, node:crypto) of its payload bytes (JSON text, or binary64 samples). Temporary files (dot names) are ignored.
  */
 function corruptCacheEntries(dir: string): string[] {
   const root = join(dir, '.patternfold-cache');
@@ -70,12 +70,12 @@ function corruptCacheEntries(dir: string): string[] {
     for (const entry of readdirSync(folder, { withFileTypes: true })) {
       const path = join(folder, entry.name);
       if (entry.isDirectory()) walk(path);
-      else if (!entry.name.startsWith('.') && /^(cells|recordings)$/.test(relative(root, path).split(sep)[0])) {
-        const text = readFileSync(path, 'utf8');
-        const newline = text.indexOf('\n');
-        const [magic, , , checksum] = text.slice(0, newline).split(' ');
-        const body = text.slice(newline + 1);
-        if (magic !== 'patternfold-cache' || createHash('sha256').update(body, 'utf8').digest('hex') !== checksum) bad.push(path);
+      else if (!entry.name.startsWith('.') && /^(cells|recordings|series)$/.test(relative(root, path).split(sep)[0])) {
+        const bytes = readFileSync(path);
+        const newline = bytes.indexOf(0x0a);
+        const [magic, , , checksum] = bytes.toString('latin1', 0, newline).split(' ');
+        const body = bytes.subarray(newline + 1);
+        if (magic !== 'patternfold-cache' || createHash('sha256').update(body).digest('hex') !== checksum) bad.push(path);
       }
     }
   };

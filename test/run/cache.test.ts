@@ -9,7 +9,8 @@ import { join } from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { loadStudy } from '../../src/study/index.ts';
 import { runStudy } from '../../src/run/index.ts';
-import { cacheKey, exactJson, keyFamily, parseExactJson, pruneCache, summariseCache, clearCache, openFeatureCache } from '../../src/run/feature-cache.ts';
+import { computeFeatureStage } from '../../src/run/run-study.ts';
+import { bytesToSamples, cacheKey, exactJson, samplesToBytes, keyFamily, parseExactJson, pruneCache, summariseCache, clearCache, openFeatureCache } from '../../src/run/feature-cache.ts';
 import fc from 'fast-check';
 import type { Cell, FeatureOptions } from '../../src/features/index.ts';
 import { recordingFeatures, storeOutcome, type RecordingTask } from '../../src/run/recording-features.ts';
@@ -99,22 +100,55 @@ describe('feature cache', () => {
     expect((await features(dir, 'r2')).count).toBe(1);
   });
 
+  it('a corrupted series entry is reported and the file parsed instead; the entry is rewritten', async () => {
+    const dir = studyFolder();
+    await features(dir, 'cold');
+    const seriesDir = join(dir, 'cache', 'series');
+    const prefix = readdirSync(seriesDir).sort()[0];
+    const entry = join(seriesDir, prefix, readdirSync(join(seriesDir, prefix)).sort()[0]);
+    const original = readFileSync(entry);
+    const tampered = Buffer.from(original);
+    tampered[tampered.length - 3] ^= 0x01; // one bit of the last sample
+    writeFileSync(entry, tampered);
+    const rerun = await features(dir, 'rerun', ['grid.scale=1,2,3']);
+    expect(rerun.warnings.some((w) => w.includes('is corrupt') && w.includes(entry))).toBe(true);
+    expect(rerun.csv).toBe((await features(dir, 'fresh', ['grid.scale=1,2,3'], null)).csv);
+    expect(readFileSync(entry).equals(original)).toBe(true);
+  });
+
   it('summarises, prunes by last use and clears, refusing a folder that is not a cache', async () => {
     const dir = studyFolder(STUDY, 2, 200);
     await features(dir, 'cold');
     const cache = join(dir, 'cache');
     const s = summariseCache(cache);
-    expect(s.entries).toEqual({ cells: 4 * 8, recordings: 4 });
+    expect(s.entries).toEqual({ cells: 4 * 8, recordings: 4, series: 4 });
     expect(s.bytes).toBeGreaterThan(0);
     expect(pruneCache(cache, 1).entries).toBe(0);
-    expect(pruneCache(cache, 0, new Date(Date.now() + 2 * 86400000)).entries).toBe(36);
-    expect(summariseCache(cache).entries).toEqual({ cells: 0, recordings: 0 });
+    expect(pruneCache(cache, 0, new Date(Date.now() + 2 * 86400000)).entries).toBe(40);
+    expect(summariseCache(cache).entries).toEqual({ cells: 0, recordings: 0, series: 0 });
     await features(dir, 'again');
-    expect(clearCache(cache).entries).toBe(36);
+    expect(clearCache(cache).entries).toBe(40);
     expect(() => clearCache(join(dir, 'a'))).toThrow(/is not a patternfold cache folder/);
   });
 
-  it('a rerun that computes new cells takes the recording facts from the cache instead of summarising the samples again', async () => {
+  it('stores samples exactly as little-endian binary64 (IEEE 754) and refuses a payload of part of a double', () => {
+    const values = Float64Array.of(1.5, NaN, -0, 5e-324, -1.7976931348623157e308, 0.1);
+    const bytes = samplesToBytes(values);
+    expect(Buffer.from(bytes.subarray(0, 8)).toString('hex')).toBe('000000000000f83f'); // 1.5 = 0x3FF8000000000000 [D]
+    const back = bytesToSamples(bytes)!;
+    expect(Array.from(back).every((v, i) => Object.is(v, values[i]))).toBe(true);
+    expect(bytesToSamples(bytes.subarray(0, 13))).toBeNull();
+  });
+
+  it('holds parsed samples for the series cache only within the budget; cells are cached either way', async () => {
+    const dir = studyFolder();
+    const study = loadStudy(join(dir, 'study.yaml'));
+    const cacheDir = join(dir, 'cache');
+    await computeFeatureStage(study, undefined, { cacheDir, pool: null, seriesBudgetBytes: 300 * 8 * 2 }); // room for two recordings of 300 samples
+    expect(summariseCache(cacheDir).entries).toEqual({ cells: 6 * 8, recordings: 6, series: 2 });
+  });
+
+  it('a rerun that computes new cells takes the facts and the samples from the cache instead of parsing the file again', async () => {
     const dir = studyFolder();
     const options: FeatureOptions = { ties: 'appearance', jitterRepeats: 1, scaleForm: 'coarse', seed: 1, minWindowsPerPattern: 5 };
     const task = (cells: Cell[], cacheDir: string | null): RecordingTask => ({ path: join(dir, 'a', 'a1.csv'), signal: { column: 1, start: 0, length: null }, options, cells, cacheDir });
@@ -124,11 +158,14 @@ describe('feature cache', () => {
     storeOutcome(task([{ order: 3, delay: 1, scale: 1 }], cacheDir), first, openFeatureCache(cacheDir));
     const widened = [{ order: 3, delay: 1, scale: 1 }, { order: 3, delay: 1, scale: 2 }];
     const second = await recordingFeatures(task(widened, cacheDir));
-    expect(second.parsed).toBe(true);
+    expect(second.parsed).toBe(false);
     expect(second.factsComputed).toBe(false);
+    expect(second.series).toBeNull();
     expect(second.computed).toEqual([{ order: 3, delay: 1, scale: 2 }]);
-    const uncached = await recordingFeatures(task(widened, null));
-    expect(second.facts).toEqual(uncached.facts); // reference: the facts summarised from the samples
+    const uncached = await recordingFeatures(task(widened, null)); // reference: parsed from the file
+    expect(uncached.parsed).toBe(true);
+    expect(second.facts).toEqual(uncached.facts);
+    expect(exactJson(second.cells)).toBe(exactJson(uncached.cells));
   });
 });
 
