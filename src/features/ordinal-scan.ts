@@ -37,6 +37,8 @@ export interface OrdinalScan {
 const DENSE_CODE_LIMIT = 2 ** 23;
 /** Transition matrices up to this many cells are dense; beyond, edges are collected and sorted. */
 const DENSE_EDGE_LIMIT = 2 ** 20;
+/** ... and only up to this many cells per sample of the series (short coarse-grained series collect). */
+const DENSE_EDGE_PER_SAMPLE = 4;
 
 const enum EdgeMode {
   /** delay 1, appearance: the next code follows from (code, rank of the newest sample). */
@@ -62,8 +64,8 @@ const enum EdgeMode {
  * cancellation; a constant window gives exactly 0). O(n · (m_max + orders)) time;
  * memory O(sum of m! + transition tables), plus 4 bytes per window (8 when the key
  * source·space + target can exceed 2^32) for orders whose transition matrix is too large to
- * hold densely (delay >= 2 with m >= 7, or symbols with m >= 5), whose edges are then sorted
- * (O(N log N)).
+ * hold densely (delay >= 2 with m >= 7, or symbols with m >= 5) or large beside the series
+ * (more than 4 cells per sample), whose edges are then sorted (O(N log N)).
  *
  * Orders are deduplicated and returned ascending. A series too short for an order gives
  * validWindows 0 and empty lists. Throws a RangeError for an order outside 2..9, no order,
@@ -107,9 +109,12 @@ export function scanOrdinalPatterns(
   const mapCounts = list.map(() => new Map<number, number>());
   const mapWeights = list.map(() => new Map<number, number>());
   // Transition counts, same layout; orders in EdgeMode.Collected append keys instead.
+  // a dense matrix pays for all space² cells (allocation and the final sweep), collected keys
+  // for a sort of the windows: dense only when the matrix is small beside the series
   const edgeMode = Int32Array.from(list, (m, g) => {
     if (!symbols && tau === 1) return EdgeMode.ByRank;
-    return space[g] * space[g] <= DENSE_EDGE_LIMIT ? EdgeMode.Dense : EdgeMode.Collected;
+    const cells = space[g] * space[g];
+    return cells <= DENSE_EDGE_LIMIT && cells <= DENSE_EDGE_PER_SAMPLE * n ? EdgeMode.Dense : EdgeMode.Collected;
   });
   const edgeOffset = new Int32Array(groups);
   let edgeCells = 0;
