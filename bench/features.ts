@@ -14,12 +14,12 @@
  * Run: node --import tsx bench/features.ts [--samples 10000000] [--runs 5]
  */
 import { loadavg } from 'node:os';
-import { performance } from 'node:perf_hooks';
 import { computeGridFeatures } from '../src/features/grid-features.ts';
 import { countOrdinalPatterns } from '../src/features/count-patterns.ts';
 import type { FeatureOptions, Grid } from '../src/features/types.ts';
 import { createRng } from '../src/shared/random.ts';
 import { argument } from './arguments.ts';
+import { bestSeconds } from './best-seconds.ts';
 
 export interface FeatureBenchRow {
   task: string;
@@ -32,16 +32,6 @@ export interface FeatureBenchRow {
 const OPTIONS: FeatureOptions = { ties: 'appearance', jitterRepeats: 1, scaleForm: 'coarse', seed: 1, minWindowsPerPattern: 5 };
 
 
-/** Best (shortest) wall time in seconds of `runs` calls. */
-function bestSeconds(runs: number, task: () => unknown): number {
-  let best = Infinity;
-  for (let r = 0; r < runs; r++) {
-    const start = performance.now();
-    task();
-    best = Math.min(best, (performance.now() - start) / 1000);
-  }
-  return best;
-}
 
 /** Plain summation loop: the floor any one-pass kernel over the array must pay. */
 function plainSum(x: Float64Array): number {

@@ -18,11 +18,11 @@
  * Run: node --import tsx bench/parse.ts [--lines 1000000] [--runs 5]
  */
 import { loadavg } from 'node:os';
-import { performance } from 'node:perf_hooks';
 import { parseDelimited, parseDelimitedGeneral } from '../src/signals/delimited.ts';
 import { createRng } from '../src/shared/random.ts';
 import type { Series, SignalSelection } from '../src/signals/types.ts';
 import { argument } from './arguments.ts';
+import { bestSeconds } from './best-seconds.ts';
 
 export interface ParseBenchRow {
   table: string;
@@ -42,16 +42,6 @@ interface Shape {
   selection: SignalSelection;
 }
 
-/** Best (shortest) wall time in seconds of `runs` calls. */
-function bestSeconds(runs: number, task: () => unknown): number {
-  let best = Infinity;
-  for (let r = 0; r < runs; r++) {
-    const start = performance.now();
-    task();
-    best = Math.min(best, (performance.now() - start) / 1000);
-  }
-  return best;
-}
 
 /** Reads every char code of the texts: the floor of any reader that works on the string. */
 function charCodeLoop(texts: readonly string[]): number {
