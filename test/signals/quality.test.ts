@@ -33,4 +33,14 @@ describe('describeSeries', () => {
       }),
     );
   });
+
+  it('counts distinct values of any doubles like a Set does (-0 and +0 as one), in any order', () => {
+    const anyDouble = fc.oneof(fc.double(), fc.constantFrom(0, -0, NaN, Infinity, -Infinity, 5e-324, -5e-324), fc.integer({ min: -3, max: 3 }));
+    fc.assert(
+      fc.property(fc.array(anyDouble, { maxLength: 300 }), (xs) => {
+        expect(describeSeries(Float64Array.from(xs)).distinct).toBe(new Set(xs.filter((x) => !Number.isNaN(x))).size); // Set uses SameValueZero: -0 equals +0 (ECMA-262)
+      }),
+      { numRuns: 300 },
+    );
+  });
 });
