@@ -1,3 +1,5 @@
+import { splitQuotedFields } from '../shared/quoted-fields.ts';
+
 /**
  * Field delimiters of a text table. `whitespace` means runs of spaces and tabs, with
  * leading and trailing blanks ignored; `none` means one value per line.
@@ -22,7 +24,7 @@ export function splitFields(line: string, delimiter: Delimiter): string[] {
     return trimmed === '' ? [''] : trimmed.split(/[ \t]+/);
   }
   if (!line.includes('"')) return line.split(delimiter).map((f) => f.trim());
-  return splitQuoted(line, delimiter);
+  return splitQuotedFields(line, delimiter);
 }
 
 /**
@@ -45,30 +47,6 @@ export function fieldAt(line: string, delimiter: Delimiter, index: number): stri
   }
   const end = line.indexOf(delimiter, from);
   return (end < 0 ? line.slice(from) : line.slice(from, end)).trim();
-}
-
-function splitQuoted(line: string, delimiter: string): string[] {
-  const fields: string[] = [];
-  let field = '';
-  let inQuotes = false;
-  for (let i = 0; i < line.length; i++) {
-    const ch = line[i];
-    if (inQuotes) {
-      if (ch !== '"') field += ch;
-      else if (line[i + 1] === '"') field += line[i++];
-      else inQuotes = false;
-    } else if (ch === '"' && field.trim() === '') {
-      field = '';
-      inQuotes = true;
-    } else if (ch === delimiter) {
-      fields.push(field.trim());
-      field = '';
-    } else {
-      field += ch;
-    }
-  }
-  fields.push(field.trim());
-  return fields;
 }
 
 /**

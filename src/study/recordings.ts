@@ -13,6 +13,7 @@ import { checkNameLength } from './names.ts';
 import { brokenLink, brokenLinksBeside, describeBrokenLink } from './broken-links.ts';
 import { showValue, studyPosition } from './validate.ts';
 import type { Recording } from './types.ts';
+import { splitQuotedFields } from '../shared/quoted-fields.ts';
 
 const DATA_EXTENSIONS = /\.(csv|tsv|txt|dat|edf)$/i;
 
@@ -96,30 +97,6 @@ function checkRecordingFile(path: string, at: string): void {
   }
 }
 
-/** Splits one line of a CSV or tab-separated manifest, honouring double quotes. */
-function splitManifestLine(line: string, delimiter: string): string[] {
-  const cells: string[] = [];
-  let cell = '';
-  let quoted = false;
-  for (let i = 0; i < line.length; i++) {
-    const c = line[i];
-    if (quoted) {
-      if (c === '"' && line[i + 1] === '"') {
-        cell += '"';
-        i++;
-      } else if (c === '"') quoted = false;
-      else cell += c;
-    } else if (c === '"') quoted = true;
-    else if (c === delimiter) {
-      cells.push(cell.trim());
-      cell = '';
-    }
-    else cell += c;
-  }
-  cells.push(cell.trim());
-  return cells;
-}
-
 /**
  * Recordings from a manifest table with columns subject, group, file (other columns are
  * covariates). Several rows of one subject are several recordings of it.
@@ -140,7 +117,7 @@ export function recordingsFromManifest(ctx: Context, manifest: string, groupName
   const headerIndex = lines.findIndex((l) => l.trim() !== '' && !l.startsWith('#'));
   if (headerIndex < 0) throw new InputError(`${manifestPath}: the subjects manifest is empty — it needs a header row subject, group, file`);
   const delimiter = lines[headerIndex].includes('\t') ? '\t' : ',';
-  const header = splitManifestLine(lines[headerIndex], delimiter).map((h) => h.toLowerCase());
+  const header = splitQuotedFields(lines[headerIndex], delimiter).map((h) => h.toLowerCase());
   for (const column of ['subject', 'group', 'file']) {
     if (!header.includes(column)) throw new InputError(`${manifestPath}:${headerIndex + 1}: the manifest has no column '${column}' (found: ${header.join(', ')}) — the header must name subject, group and file`);
   }
@@ -154,7 +131,7 @@ export function recordingsFromManifest(ctx: Context, manifest: string, groupName
   for (let i = headerIndex + 1; i < lines.length; i++) {
     const line = lines[i];
     if (line.trim() === '' || line.startsWith('#')) continue;
-    const cells = splitManifestLine(line, delimiter);
+    const cells = splitQuotedFields(line, delimiter);
     const lineAt = `${manifestPath}:${i + 1}`;
     if (cells.length !== header.length) throw new InputError(`${lineAt}: expected ${header.length} cells (${header.join(', ')}), found ${cells.length} — check the delimiters on that line`);
     const subject = cells[index('subject')];
