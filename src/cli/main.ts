@@ -68,6 +68,7 @@ async function runCheck(cmd: ParsedCommand, io: Io): Promise<number> {
   io.out(`grid: order ${study.grid.order.join(',')} x delay ${study.grid.delay.join(',')} x scale ${study.grid.scale.join(',')} = ${cells} cell(s)`);
   if (report.warnings.length === 0) io.out('no warnings.');
   else io.out(`\n${report.warnings.length} warning(s):\n` + report.warnings.map((w) => `  - ${safeText(w)}`).join('\n'));
+  if (report.notes.length > 0) io.out(`\n${report.notes.length} note(s):\n` + report.notes.map((n) => `  - ${safeText(n)}`).join('\n'));
   return 0;
 }
 
@@ -124,6 +125,7 @@ async function runPipeline(cmd: ParsedCommand, io: Io, stage: 'features' | 'all'
     progress.end();
   }
   if (!quiet && outcome.warnings.length > 0) io.err(`${outcome.warnings.length} warning(s):\n` + outcome.warnings.map((w) => `  - ${safeText(w)}`).join('\n'));
+  if (!quiet && outcome.notes.length > 0) io.err(`${outcome.notes.length} note(s):\n` + outcome.notes.map((n) => `  - ${safeText(n)}`).join('\n'));
   io.out(`wrote ${outcome.files.map((f) => safeText(`${out}/${f}`)).join(', ')}`);
   if (outcome.keyFile) io.out(`pseudonym key (keep it private; it is not in the report folder): ${safeText(outcome.keyFile)}`);
   return 0;

@@ -227,6 +227,8 @@ export interface ReportInput {
   headline: Headline;
   cohort: CohortRow[];
   warnings: QualityWarning[];
+  /** Notes about the study and the evaluation (not data problems): settings adjusted, columns left out, paths outside the study folder. */
+  notes: string[];
   gridScan: GridScanCell[];
   selection: Selection;
   univariate: UnivariateRow[];

@@ -24,6 +24,8 @@ export interface Results {
     groups: [string, string];
     subjectsPerGroup: Record<string, number>;
     overrides: string[];
+    /** Notes about the study as written (not data problems), e.g. recordings outside its folder. */
+    notes: string[];
   };
   settings: Pick<Study, 'signal' | 'grid' | 'features' | 'evaluation' | 'report'>;
   recordings: {
@@ -82,6 +84,7 @@ export function buildResults(study: Study, stage: FeatureStage, meta: RunMeta): 
       groups: study.groups,
       subjectsPerGroup: subjectsPerGroup(study),
       overrides: study.overrides,
+      notes: stage.notes,
     },
     settings: { signal: study.signal, grid: study.grid, features: study.features, evaluation: study.evaluation, report: study.report },
     recordings: stage.infos.map((info) => ({

@@ -49,6 +49,7 @@ export interface RunOutcome {
   out: string;
   files: string[];
   warnings: string[];
+  notes: string[];
   results: Results;
   /** Where the pseudonym key was written (beside, never inside, the output folder), or null. */
   keyFile: string | null;
@@ -61,7 +62,10 @@ export interface FeatureStage {
   infos: RecordingInfo[];
   rows: FeatureRow[];
   quality: QualityRow[];
+  /** About the data and the cache: things that may bias or undermine the results. */
   warnings: string[];
+  /** About the study as written (e.g. recordings outside the study folder): worth knowing, not a data problem. */
+  notes: string[];
 }
 
 /**
@@ -77,7 +81,8 @@ export async function computeFeatureStage(study: Study, onProgress?: RunOptions[
     infos,
     rows: reduced.flatMap((r) => featureRows(study, r.info, r.outcome.cells)),
     quality,
-    warnings: [...study.notes, ...studyWarnings(study, infos), ...flaggedCellNotes(quality, infos.length), ...cacheWarnings],
+    warnings: [...studyWarnings(study, infos), ...flaggedCellNotes(quality, infos.length), ...cacheWarnings],
+    notes: [...study.notes],
   };
 }
 
@@ -190,7 +195,7 @@ async function runWithPool(study: Study, options: RunOptions, started: Date, pse
     throw e;
   }
   const keyFile = pseudonymKey ? writePseudonymKey(options.out, pseudonymKey) : null;
-  return { out: options.out, files: files.map(([name]) => name), warnings: stage.warnings, results, keyFile };
+  return { out: options.out, files: files.map(([name]) => name), warnings: stage.warnings, notes: stage.notes, results, keyFile };
 }
 
 /** Throws InputError (exit 2, nothing written) when the study needs --force. */

@@ -212,6 +212,7 @@ export function buildInput(names: FixtureNames = PLAIN, perGroup = 20): ReportIn
       { message: 'The two groups differ in median recording length by 4%.' },
       { subject: subjects[4].id, file: `${names.filePrefix}control/${subjects[4].id}.csv`, message: names.warning },
     ],
+    notes: [`2 recording(s) lie outside the study file's folder (e.g. ../${names.filePrefix}x.csv): keep the folders together when you share the study`],
     gridScan,
     selection: {
       naiveBest: { order: 5, delay: 1, scale: 1, auc: 0.842 }, nestedAuc: 0.781,

@@ -164,3 +164,20 @@ describe('renderReport: missing pieces are said, not hidden', () => {
     await expect(renderReport(input)).rejects.toThrow('report input cohort[0].group: must be 0 or 1, got 2');
   });
 });
+
+describe('renderReport: notes apart from quality warnings', () => {
+  it('lists notes about the study under their own heading, after the quality warnings, escaped', () => {
+    const warningsAt = page.indexOf('<h3>Quality warnings</h3>');
+    const notesAt = page.indexOf('<h3>Notes</h3>');
+    expect(warningsAt).toBeGreaterThan(0);
+    expect(notesAt).toBeGreaterThan(warningsAt);
+    expect(page.slice(notesAt)).toMatch(/lie outside the study file&#39;s folder/);
+    const hostileNotes = hostile.slice(hostile.indexOf('<h3>Notes</h3>'), hostile.indexOf('</ul>', hostile.indexOf('<h3>Notes</h3>')));
+    expect(hostileNotes).not.toContain('<script>');
+    expect(hostileNotes).toContain(`../${escapeHtml('<script>alert(3)</script>')}`);
+  });
+
+  it('shows no Notes heading when there are none', async () => {
+    expect(await renderReport({ ...buildInput(), notes: [] })).not.toContain('<h3>Notes</h3>');
+  });
+});

@@ -43,6 +43,11 @@ function warningList(input: ReportInput): Markup {
   )}</ul>`;
 }
 
+function noteList(input: ReportInput): Markup | string {
+  if (input.notes.length === 0) return '';
+  return html`<h3>Notes</h3><ul class="notes">${input.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
+}
+
 /** Renders the cohort section. */
 export function cohortSection(input: ReportInput): Markup {
   const rows = [...input.cohort].sort((a, b) => a.group - b.group || a.subject.localeCompare(b.subject) || a.id.localeCompare(b.id));
@@ -52,7 +57,7 @@ export function cohortSection(input: ReportInput): Markup {
       <tbody>${groupSummaryRow(input, 0)}${groupSummaryRow(input, 1)}</tbody></table>
     <p class="note">Groups that differ in recording length, missing samples or ties can differ in ordinal patterns for that
       reason alone: compare the rows above before reading the rest.</p>
-    <h3>Quality warnings</h3>${warningList(input)}
+    <h3>Quality warnings</h3>${warningList(input)}${noteList(input)}
     <h3>All ${input.cohort.length} recordings</h3>
       <table><thead><tr><th>recording</th><th>subject</th><th>group</th><th>length</th><th>missing</th><th>tied windows</th><th>warnings</th></tr></thead>
       <tbody>${rows.map((r) => recordingRow(input, r))}</tbody></table>
