@@ -223,11 +223,11 @@ export const CASES: CorpusCase[] = [
   // ---- paths, links, long lines, changing files -----------------------------------------------
   {
     id: '59-path-outside-study-folder',
-    checks: 'globs that leave the study folder are allowed, and check says so',
+    checks: 'globs that leave the study folder are allowed, and check says so in a note, not a warning',
     command: 'check',
     study: 'study/study.yaml',
     exit: 0,
-    words: ["4 recording(s) lie outside the study file's folder", '../a/a1.csv', 'keep the folders together'],
+    words: ['no warnings.', '1 note(s):', "4 recording(s) lie outside the study file's folder", '../a/a1.csv', 'keep the folders together'],
   },
   { id: '60-very-long-bad-cell', checks: 'a cell of a million characters: the message quotes 40 of them', command: 'features', exit: 2, setup: setups.veryLongCell, words: ['a1.csv:5', 'x'.repeat(40) + '…', 'not a number'], fix: 'correct it' },
   { id: '61-very-long-header', checks: 'a header of 50 000 names: the message lists 20 of them', command: 'check', exit: 2, setup: setups.veryLongHeader, words: ['a1.csv', '"heart_rate"', '"channel_20"', '(50000 in all)'], absent: ['channel_21"'], fix: 'available columns' },
