@@ -35,7 +35,7 @@ export interface RecordingOutcome {
   cells: CellFeatures[];
   /** The cells that were computed (not found in the cache). */
   computed: Cell[];
-  /** True when the recording's samples were read and parsed (false when everything was cached). */
+  /** True when the recording's file was parsed (false when every cell, or the samples themselves, came from the cache). */
   parsed: boolean;
   /** True when `facts` were computed from the samples (false when they came from the cache). */
   factsComputed: boolean;
@@ -149,7 +149,7 @@ function computeMissing(task: RecordingTask, lookup: Lookup, cache: FeatureCache
   };
 }
 
-/** What is learnt about a recording from its parsed series (the summary sorts a copy: O(n log n)). */
+/** What is learnt about a recording from its parsed series (O(n); see describeSeries). */
 function factsOf(series: Series, sha256: string): RecordingFacts {
   return {
     sha256,
