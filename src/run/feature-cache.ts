@@ -1,10 +1,11 @@
 /**
  * The feature cache: content-addressed entries on disk, one per (recording content, signal
- * selection, grid cell, feature settings, definitions version), plus one per (recording
- * content, signal selection) holding what was learnt about the recording when it was read.
+ * selection, grid cell, feature settings, definitions version), plus two per (recording
+ * content, signal selection): what was learnt about the recording when it was read, and its
+ * parsed samples.
  *
  * An entry file is one header line `patternfold-cache 1 <key> <sha256 of the rest>` followed
- * by the JSON payload. It is written under a temporary name and renamed into place (atomic on
+ * by the payload: JSON, or for samples their binary64 bytes. It is written under a temporary name and renamed into place (atomic on
  * POSIX file systems, so concurrent shards on a shared folder never see half an entry), and
  * verified on every read: a header, key or checksum that does not match makes the entry count
  * as absent, with a warning, so that it is recomputed and rewritten, never used.
