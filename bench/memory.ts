@@ -7,11 +7,12 @@
  * scale 1,2 (6 cells). Prints the peak resident memory of the whole process, worker threads
  * included (process.resourceUsage().maxRSS), at every tenth of the cohort.
  *
- * Target: under 1.5 GB for 2,000 x 10^6. The full size takes 2,000 x (generate + write + read
- * + count 10^6 samples): about 20 minutes on 2 cores, so the default is --subjects 100; pass
- * --subjects 2000 for the full figure. --jobs 1 works in this thread (no pool).
+ * Target: under 1.5 GB for 2,000 x 10^6, the default. That takes 2,000 x (generate + write +
+ * read + count 10^6 samples): 25-30 minutes on 2 cores; --subjects 100 gives a first look in
+ * two (the peak is reached within the first few hundred recordings). --jobs 1 works in this
+ * thread (no pool).
  *
- * Run: node --import tsx bench/memory.ts [--subjects 100] [--samples 1000000] [--jobs 2]
+ * Run: node --import tsx bench/memory.ts [--subjects 2000] [--samples 1000000] [--jobs 2]
  */
 import { rmSync } from 'node:fs';
 import { availableParallelism, loadavg } from 'node:os';
@@ -34,7 +35,7 @@ const peakRssMB = () => process.resourceUsage().maxRSS / 1024;
 
 /** Runs the benchmark and prints its figures. */
 export async function benchMemory(
-  subjects = argument('--subjects', 100),
+  subjects = argument('--subjects', 2000),
   samples = argument('--samples', 1_000_000),
   jobs = argument('--jobs', availableParallelism()),
 ): Promise<MemoryFigures> {
