@@ -14,9 +14,10 @@ import { checkFoldsFeasible, countByLabel, indexSubjects, repeatedSubjectFolds }
 import type { SubjectIndex } from './cv.ts';
 import { crossValidate } from './crossval.ts';
 import type { CrossValidation, Design } from './crossval.ts';
-import { cellScores, gridCellsOf, nestedBestCell, rawCellPValues, westfallYoungMaxT } from './grid-scan.ts';
+import { cellScores, cellScoreSteps, gridCellsOf, nestedBestCellSteps, rawCellPValues, westfallYoungMaxT } from './grid-scan.ts';
 import type { GridCell } from './grid-scan.ts';
-import { importanceByCell, importanceByFeature, permutationImportance } from './importance.ts';
+import { importanceByCell, importanceByFeature, permutationImportanceSteps } from './importance.ts';
+import { driveSteps, finishSteps, type Steps } from './steps.ts';
 import { classificationMetrics } from './metrics.ts';
 import { runPermutationTest } from './permutation.ts';
 import type { PermutationRun } from './permutation.ts';
@@ -75,11 +76,11 @@ export function evaluateWithClassifier(
   classifier: Classifier,
   onProgress?: ProgressCallback,
 ): EvaluationResult {
-  const observed = observeStudy(matrix, settings, classifier, onProgress);
+  const observed = finishSteps(observeSteps(matrix, settings, classifier, onProgress));
   const run = runPermutationTest(observed.study.pipeline, observed.statistics, settings.permutations, stopAfterOf(settings), (done, total) =>
     onProgress?.('permutations', done, total),
   );
-  return concludeEvaluation(matrix, observed, run, onProgress);
+  return finishSteps(concludeSteps(matrix, observed, run, onProgress));
 }
 
 /**
@@ -96,20 +97,23 @@ export type PermutationStage = (
 
 /**
  * evaluateStudy with the permutation stage handed to `permute` (e.g. a worker pool); every
- * other step runs here. Gives the same result as {@link evaluateStudy} when `permute` keeps
- * its contract. Same errors.
+ * other step runs here, awaiting `pause()` (when given) after each grid cell, outer fold of
+ * the nested cross-validation and repeat of the importance, so that an event loop can serve
+ * signals in between. Gives the same result as {@link evaluateStudy} when `permute` keeps its
+ * contract. Same errors.
  */
 export async function evaluateStudyWith(
   matrix: FeatureMatrix,
   settings: EvaluationSettings,
   permute: PermutationStage,
   onProgress?: ProgressCallback,
+  pause?: () => Promise<void>,
 ): Promise<EvaluationResult> {
-  const observed = observeStudy(matrix, settings, classifierFor(settings), onProgress);
+  const observed = await driveSteps(observeSteps(matrix, settings, classifierFor(settings), onProgress), pause);
   const run = await permute(observed.study, observed.statistics, settings.permutations, stopAfterOf(settings), (done, total) =>
     onProgress?.('permutations', done, total),
   );
-  return concludeEvaluation(matrix, observed, run, onProgress);
+  return driveSteps(concludeSteps(matrix, observed, run, onProgress), pause);
 }
 
 const stopAfterOf = (settings: EvaluationSettings): number | null => (settings.stopEarly ? STOP_AFTER_EXCEEDANCES : null);
@@ -124,7 +128,7 @@ interface ObservedStudy {
   statistics: Float64Array;
 }
 
-function observeStudy(matrix: FeatureMatrix, settings: EvaluationSettings, classifier: Classifier, onProgress?: ProgressCallback): ObservedStudy {
+function* observeSteps(matrix: FeatureMatrix, settings: EvaluationSettings, classifier: Classifier, onProgress?: ProgressCallback): Steps<ObservedStudy> {
   const study = prepareStudy(matrix, settings, classifier);
   const { design, subjects, cells } = study;
   const gridScanned = cells.length >= 2;
@@ -132,15 +136,16 @@ function observeStudy(matrix: FeatureMatrix, settings: EvaluationSettings, class
   onProgress?.('cross-validation', 0, 1);
   const observedFolds = repeatedSubjectFolds(subjects.labels, settings.folds, settings.repeats, settings.seed);
   const headlineCv = crossValidate(design, study.allColumns, subjects.labels, observedFolds, settings.folds, classifier, settings.seed);
+  yield;
   const observedCells = gridScanned
-    ? cellScores(design, cells, subjects.labels, observedFolds, settings.folds, classifier, settings.seed)
+    ? yield* cellScoreSteps(design, cells, subjects.labels, observedFolds, settings.folds, classifier, settings.seed)
     : Float64Array.of(headlineCv.score);
   const statistics = Float64Array.of(headlineCv.score, ...(gridScanned ? observedCells : []));
   onProgress?.('cross-validation', 1, 1);
   return { study, observedFolds, headlineCv, observedCells, statistics };
 }
 
-function concludeEvaluation(matrix: FeatureMatrix, observed: ObservedStudy, run: PermutationRun, onProgress?: ProgressCallback): EvaluationResult {
+function* concludeSteps(matrix: FeatureMatrix, observed: ObservedStudy, run: PermutationRun, onProgress?: ProgressCallback): Steps<EvaluationResult> {
   const { study, observedFolds, headlineCv, observedCells } = observed;
   const { design, subjects, cells, settings, classifier } = study;
   const gridScanned = cells.length >= 2;
@@ -156,7 +161,7 @@ function concludeEvaluation(matrix: FeatureMatrix, observed: ObservedStudy, run:
   if (B === 0) notes.push('No permutations were requested, so no p-values are reported.');
 
   const nested = gridScanned
-    ? nestedBestCell(design, cells, subjects.labels, observedFolds, settings.folds, classifier, settings.seed, (d, t) => onProgress?.('nested', d, t))
+    ? yield* nestedBestCellSteps(design, cells, subjects.labels, observedFolds, settings.folds, classifier, settings.seed, (d, t) => onProgress?.('nested', d, t))
     : null;
   const nestedReason = !gridScanned
     ? 'the grid has one cell, so there is no cell to pick'
@@ -166,7 +171,7 @@ function concludeEvaluation(matrix: FeatureMatrix, observed: ObservedStudy, run:
   if (nested && nested.innerFolds < settings.folds) notes.push(`Nested cross-validation used ${nested.innerFolds} inner folds (outer training sets too small for ${settings.folds}).`);
 
   onProgress?.('importance', 0, 1);
-  const importance = permutationImportance(design, subjects.labels, observedFolds, settings.folds, classifier, settings.seed);
+  const importance = yield* permutationImportanceSteps(design, subjects.labels, observedFolds, settings.folds, classifier, settings.seed);
   onProgress?.('importance', 1, 1);
 
   const meanP = meanProbabilityPerSubject(headlineCv, design.nSubjects);

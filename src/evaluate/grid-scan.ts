@@ -19,6 +19,7 @@ import { foldRows, crossValidate, predictFold, rowLabelsOf, subjectMeans } from 
 import type { Design } from './crossval.ts';
 import type { FeatureColumn } from './types.ts';
 import { deriveSeed } from '../shared/random.ts';
+import { finishSteps, type Steps } from './steps.ts';
 
 /** A grid cell and the design columns that belong to it. */
 export interface GridCell {
@@ -106,7 +107,12 @@ export function westfallYoungMaxT(observed: ArrayLike<number>, nullScores: reado
 }
 
 /** Scores of every cell, same folds and fit seeds as the headline model. */
-export function cellScores(
+export function cellScores(...args: Parameters<typeof cellScoreSteps>): Float64Array {
+  return finishSteps(cellScoreSteps(...args));
+}
+
+/** {@link cellScores} as steps, one per cell (see ./steps.ts). */
+export function* cellScoreSteps(
   design: Design,
   cells: readonly GridCell[],
   subjectLabels: Uint8Array,
@@ -114,10 +120,11 @@ export function cellScores(
   folds: number,
   classifier: Classifier,
   seed: number,
-): Float64Array {
+): Steps<Float64Array> {
   const out = new Float64Array(cells.length);
   for (let c = 0; c < cells.length; c++) {
     out[c] = crossValidate(design, cells[c].columns, subjectLabels, subjectFolds, folds, classifier, seed).score;
+    yield;
   }
   return out;
 }
@@ -143,7 +150,12 @@ export interface NestedSelection {
  * Cost: repeats · folds · (cells · innerFolds + 1) fits. Returns null when an outer training
  * set has fewer than 2 subjects of a group, so no inner cross-validation is possible.
  */
-export function nestedBestCell(
+export function nestedBestCell(...args: Parameters<typeof nestedBestCellSteps>): NestedSelection | null {
+  return finishSteps(nestedBestCellSteps(...args));
+}
+
+/** {@link nestedBestCell} as steps, one per outer fold (see ./steps.ts). */
+export function* nestedBestCellSteps(
   design: Design,
   cells: readonly GridCell[],
   subjectLabels: Uint8Array,
@@ -152,7 +164,7 @@ export function nestedBestCell(
   classifier: Classifier,
   seed: number,
   onFold?: (done: number, total: number) => void,
-): NestedSelection | null {
+): Steps<NestedSelection | null> {
   const innerFolds = feasibleInnerFolds(subjectLabels, subjectFolds, folds);
   if (innerFolds < 2) return null;
   const repeats = subjectFolds.length;
@@ -175,6 +187,7 @@ export function nestedBestCell(
       const p = predictFold(design, cells[best].columns, rowLabels, splits[f], classifier, deriveSeed(fitSeed, f));
       for (let i = 0; i < splits[f].test.length; i++) rowP[splits[f].test[i]] = p[i];
       onFold?.(++done, repeats * folds);
+      yield;
     }
     aucByRepeat[rep] = aucFromScores(subjectMeans(rowP, design.ofRow, design.nSubjects), subjectLabels);
   }

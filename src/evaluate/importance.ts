@@ -14,6 +14,7 @@ import type { Design } from './crossval.ts';
 import { applyPreprocessing, fitPreprocessing } from './preprocess.ts';
 import type { FeatureColumn } from './types.ts';
 import { createRng, deriveSeed } from '../shared/random.ts';
+import { finishSteps, type Steps } from './steps.ts';
 
 /**
  * AUC drop of each design column (index as in the design), averaged over repeats.
@@ -25,14 +26,19 @@ import { createRng, deriveSeed } from '../shared/random.ts';
  * predictions. Example: a column that equals the label, beside noise, gets an importance
  * near the full AUC gain over 0.5.
  */
-export function permutationImportance(
+export function permutationImportance(...args: Parameters<typeof permutationImportanceSteps>): Float64Array {
+  return finishSteps(permutationImportanceSteps(...args));
+}
+
+/** {@link permutationImportance} as steps, one per repeat (see ./steps.ts). */
+export function* permutationImportanceSteps(
   design: Design,
   subjectLabels: Uint8Array,
   subjectFolds: readonly Int32Array[],
   folds: number,
   classifier: Classifier,
   seed: number,
-): Float64Array {
+): Steps<Float64Array> {
   const nCols = design.nCols;
   const nRows = design.nRows;
   const all = Int32Array.from({ length: nCols }, (_, i) => i);
@@ -81,6 +87,7 @@ export function permutationImportance(
       const permutedAuc = aucFromScores(subjectMeans(shuffled.subarray(j * nRows, (j + 1) * nRows), design.ofRow, design.nSubjects), subjectLabels);
       importance[j] += (baseAuc - permutedAuc) / subjectFolds.length;
     }
+    yield;
   }
   return importance;
 }

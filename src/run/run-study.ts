@@ -117,7 +117,8 @@ async function computeStatistics(study: Study, stage: FeatureStage, pool: WorkPo
   const subjects = subjectMatrix(recordings);
   const settings = { ...study.evaluation, seed: deriveSeed(study.seed, 'evaluation') };
   const permute = pool ? pooledPermutationStage(pool, recordings, settings) : inThreadPermutationStage;
-  const evaluation = await evaluateStudyWith(recordings, settings, permute, onProgress);
+  // let the event loop turn between grid cells, outer folds and repeats, so Ctrl-C is served
+  const evaluation = await evaluateStudyWith(recordings, settings, permute, onProgress, () => new Promise<void>((resolve) => setImmediate(resolve)));
   return { evaluation, univariate: compareGroups(subjects), subjects, recordings };
 }
 

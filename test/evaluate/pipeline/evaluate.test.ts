@@ -13,7 +13,8 @@ import { describe, expect, it } from 'vitest';
 import type { Classifier, Model, TrainingSet } from '../../../src/evaluate/classifier.ts';
 import { crossValidate } from '../../../src/evaluate/crossval.ts';
 import { indexSubjects, repeatedSubjectFolds } from '../../../src/evaluate/cv.ts';
-import { evaluateWithClassifier, prepareStudy } from '../../../src/evaluate/evaluate.ts';
+import { evaluateStudy, evaluateStudyWith, evaluateWithClassifier, prepareStudy, type PermutationStage } from '../../../src/evaluate/evaluate.ts';
+import { runPermutationTest } from '../../../src/evaluate/permutation.ts';
 import { InputError } from '../../../src/shared/errors.ts';
 import { nearestMean, quickSettings, syntheticMatrix } from './helpers.ts';
 
@@ -145,6 +146,17 @@ describe('evaluateWithClassifier', () => {
     expect(Math.abs((r.headline.auc as number) - 0.5)).toBeLessThan(0.2);
     for (const c of r.cells) expect(c.p_adjusted).toBeGreaterThan(0.05);
     expect(r.nested?.naive_best_auc).toBeGreaterThanOrEqual(r.nested?.auc as number);
+  });
+
+  it('evaluateStudyWith pauses after the headline, each cell, each outer fold and each importance repeat, and gives evaluateStudy\'s numbers', async () => {
+    const m = syntheticMatrix({ seed: 31, perGroup: [10, 10], cells: grid, features });
+    const s = { ...quickSettings, permutations: 9 };
+    let pauses = 0;
+    const inThread: PermutationStage = async (study, observed, B, stopAfter, onEach) => runPermutationTest(study.pipeline, observed, B, stopAfter, onEach);
+    const paused = await evaluateStudyWith(m, s, inThread, undefined, async () => void pauses++);
+    expect(paused).toEqual(evaluateStudy(m, s));
+    // 1 (headline) + 4 cells + repeats x folds = 2 x 5 outer folds + 2 importance repeats [D from the step boundaries]
+    expect(pauses).toBe(1 + 4 + 10 + 2);
   });
 
   it('is deterministic under the seed and changes with it', () => {
