@@ -15,6 +15,8 @@ export interface RecordingInfo {
   /** Samples in the channel before start/length selection. */
   totalSamples: number;
   summary: SeriesSummary;
+  /** A caution about how the file was read (Series.caution), or null. */
+  caution: string | null;
 }
 
 /**
@@ -37,6 +39,7 @@ export async function forEachRecording<T>(
       sampleRate: series.sampleRate,
       totalSamples: series.totalSamples,
       summary: describeSeries(series.values),
+      caution: series.caution,
     };
     out.push({ info, value: reduce(series, info) });
     onProgress?.(out.length, study.recordings.length);

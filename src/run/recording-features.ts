@@ -16,6 +16,8 @@ export interface RecordingFacts {
   sampleRate: number | null;
   totalSamples: number;
   summary: SeriesSummary;
+  /** A caution about how the file was read (Series.caution), or null. */
+  caution: string | null;
 }
 
 export interface RecordingTask {
@@ -79,7 +81,7 @@ export function seriesCacheKey(sha256: string, signal: SignalSettings): string {
 
 /** Cache key of the facts of one recording (file content and signal selection). */
 export function factsCacheKey(sha256: string, signal: SignalSettings): string {
-  return cacheKey({ facts: 1, file: sha256, signal: { column: signal.column, start: signal.start, length: signal.length } });
+  return cacheKey({ facts: 2, file: sha256, signal: { column: signal.column, start: signal.start, length: signal.length } });
 }
 
 /**
@@ -158,6 +160,7 @@ function factsOf(series: Series, sha256: string): RecordingFacts {
     sampleRate: series.sampleRate,
     totalSamples: series.totalSamples,
     summary: describeSeries(series.values),
+    caution: series.caution,
   };
 }
 

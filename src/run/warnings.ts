@@ -38,6 +38,7 @@ export function studyWarnings(study: Study, infos: RecordingInfo[]): string[] {
   warnings.push(...shortRecordingWarnings(study, infos));
   for (const info of infos) {
     const id = info.recording.id;
+    if (info.caution) warnings.push(`recording '${id}' ${info.caution}`);
     if (info.summary.missing > 0) {
       warnings.push(
         `recording '${id}' has ${info.summary.missing} missing sample(s) (longest gap ${info.summary.longestGap}): windows and transitions across gaps are skipped`,

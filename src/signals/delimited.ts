@@ -1,5 +1,6 @@
 import { InputError } from '../shared/errors.ts';
 import { fieldAt, splitFields } from './delimiter.ts';
+import { decimalCommaCaution } from './decimal-comma.ts';
 import { readColumnFast } from './fast-column.ts';
 import { lineKind } from './line-kind.ts';
 import { quoteFound } from './quote-found.ts';
@@ -27,7 +28,8 @@ import type { Series, SignalSelection } from './types.ts';
  *   the chosen column uses one decimal mark throughout; a column mixing `1.5` and `2,5` is
  *   an InputError. With comma or whitespace delimiters a comma is never a decimal mark.
  *   Caution: a one-column file written with decimal commas (`1,5` per line) is read as two
- *   comma-separated columns; save it with semicolons or decimal points.
+ *   comma-separated columns; save it with semicolons or decimal points. Such a file gets a
+ *   `caution` on its series (see decimalCommaCaution).
  *
  * The rows are read by {@link readColumnFast} (one pass over char codes, Clinger's exact
  * fast path for numbers); any file it cannot decide, every rejected file included, is read
@@ -45,7 +47,7 @@ import type { Series, SignalSelection } from './types.ts';
 export function parseDelimited(text: string, selection: SignalSelection, fileLabel: string): Series {
   const body = withoutByteOrderMark(text);
   const channel = readColumnFast(body, selection.column, fileLabel) ?? readColumnGeneral(body, selection.column, fileLabel);
-  return selectSeries(channel, selection, fileLabel);
+  return selectSeries({ ...channel, caution: decimalCommaCaution(body) }, selection, fileLabel);
 }
 
 /**
@@ -61,7 +63,8 @@ export function parseDelimited(text: string, selection: SignalSelection, fileLab
  *   // values [1, NaN, 3], missing 1, channel 'v'
  */
 export function parseDelimitedGeneral(text: string, selection: SignalSelection, fileLabel: string): Series {
-  return selectSeries(readColumnGeneral(withoutByteOrderMark(text), selection.column, fileLabel), selection, fileLabel);
+  const body = withoutByteOrderMark(text);
+  return selectSeries({ ...readColumnGeneral(body, selection.column, fileLabel), caution: decimalCommaCaution(body) }, selection, fileLabel);
 }
 
 function withoutByteOrderMark(text: string): string {

@@ -7,6 +7,8 @@ export interface ChannelSamples {
   format: SignalFormat;
   channel: string;
   sampleRate: number | null;
+  /** A caution about how the file was read (see Series.caution). */
+  caution?: string | null;
 }
 
 /**
@@ -44,6 +46,7 @@ export function selectSeries(channel: ChannelSamples, selection: SignalSelection
     format: channel.format,
     channel: channel.channel,
     sampleRate: channel.sampleRate,
+    caution: channel.caution ?? null,
   };
 }
 

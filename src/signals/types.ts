@@ -34,6 +34,11 @@ export interface Series {
   /** EDF: samples per data record / record duration (Hz); text tables: null. */
   sampleRate: number | null;
   /**
+   * A caution about how the file was read that the data alone cannot settle, in plain words
+   * (e.g. a table that may be one column written with decimal commas); null when none.
+   */
+  caution: string | null;
+  /**
    * The file as read by `readSeries`: its size and the SHA-256 (FIPS 180-4, lowercase hex) of
    * exactly the bytes parsed, so a fingerprint never describes other bytes than the samples.
    * Absent when the series was parsed from bytes in memory.

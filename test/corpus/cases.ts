@@ -257,6 +257,16 @@ export const CASES: CorpusCase[] = [
   { id: '74-very-long-group-name', checks: 'a group name of 210 characters is refused, quoted short', command: 'check', exit: 2, words: ['study.yaml:3', 'group name', 'is 210 characters long', '…'], fix: 'use a name of at most 100 characters' },
   { id: '75-very-long-subject-id', checks: 'a manifest subject id of 150 characters is refused, quoted short', command: 'check', exit: 2, words: ['subjects.csv:3', 'subject id', 'is 150 characters long'], fix: 'use a name of at most 100 characters' },
 
+  {
+    id: '76-decimal-commas-one-column',
+    checks: 'one column written with decimal commas reads as two integer columns: check warns and says how to save it',
+    command: 'check',
+    exit: 0,
+    setup: setups.decimalCommas,
+    words: ["recording 'a1'", 'pairs of whole numbers separated by a comma', 'decimal commas', 'save it with decimal points'],
+    absent: ["recording 'a2' holds only pairs"],
+  },
+
   // ---- selection --------------------------------------------------------------------------------
   { id: '68-start-past-end', checks: 'signal.start beyond the end of a recording', command: 'check', exit: 2, words: ['a1.csv', 'start 100 skips past the end', '60 samples'], fix: 'use a start below 60' },
   { id: '69-symlink-loop', checks: 'two symbolic links pointing at each other', command: 'check', exit: 2, setup: setups.symlinkLoop, words: ['study.yaml:3', 'a/a3.csv', 'symbolic link to a4.csv', 'loop'], fix: 'fix or remove the link' },

@@ -76,6 +76,11 @@ export const setups = {
     put(dir, 'a/a1.edf', goodEdf());
     put(dir, 'a/a2.edf', goodEdf());
   },
+  /** a/a1.csv rewritten as one column with decimal commas (`0,3818` per line), as a spreadsheet set to a comma-decimal locale may save it. */
+  decimalCommas(dir: string): void {
+    const values = readFileSync(join(dir, 'a/a1.csv'), 'utf8').split('\n').filter((l) => l.trim() !== '');
+    put(dir, 'a/a1.csv', values.map((v) => Number(v).toFixed(4).replace('.', ',')).join('\n') + '\n');
+  },
   /** One cell of a million characters on line 5. */
   veryLongCell(dir: string): void {
     const lines = readFileSync(join(dir, 'a/a1.csv'), 'utf8').split('\n');
