@@ -97,9 +97,9 @@ export type PermutationStage = (
 
 /**
  * evaluateStudy with the permutation stage handed to `permute` (e.g. a worker pool); every
- * other step runs here, awaiting `pause()` (when given) after each grid cell, outer fold of
- * the nested cross-validation and repeat of the importance, so that an event loop can serve
- * signals in between. Gives the same result as {@link evaluateStudy} when `permute` keeps its
+ * other step runs here, awaiting `pause()` (when given) after the headline cross-validation,
+ * each grid cell, each outer fold of the nested cross-validation and each repeat of the
+ * importance, so that an event loop can serve signals in between. Gives the same result as {@link evaluateStudy} when `permute` keeps its
  * contract. Same errors.
  */
 export async function evaluateStudyWith(
