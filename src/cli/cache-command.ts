@@ -47,7 +47,7 @@ export function runCacheCommand(cmd: ParsedCommand, io: Io): number {
   const day = (d: Date | null) => (d ? d.toISOString().slice(0, 10) : '-');
   io.out(`feature cache ${safeText(dir)}`);
   const count = (n: number, what: string) => `${n} ${what} entr${n === 1 ? 'y' : 'ies'}`;
-  io.out(`  ${count(s.entries.cells, 'cell')}, ${count(s.entries.recordings, 'recording')}, ${count(s.entries.series, 'series')}, ${formatBytes(s.bytes)}`);
+  io.out(`  ${count(s.entries.cells, 'cell')}, ${count(s.entries.packs, 'pack')}, ${count(s.entries.recordings, 'recording')}, ${count(s.entries.series, 'series')}, ${formatBytes(s.bytes)}`);
   io.out(`  last used: oldest ${day(s.oldest)}, newest ${day(s.newest)}`);
   return 0;
 }

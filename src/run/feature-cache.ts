@@ -1,8 +1,10 @@
 /**
  * The feature cache: content-addressed entries on disk, one per (recording content, signal
- * selection, grid cell, feature settings, definitions version), plus two per (recording
- * content, signal selection): what was learnt about the recording when it was read, and its
- * parsed samples.
+ * selection, grid cell, feature settings, definitions version); a pack per (recording content,
+ * signal selection, feature settings, definitions version) holding copies of its cells, so a
+ * rerun reads one file per recording (an index: a cell missing from it is looked up on its
+ * own); and two per (recording content, signal selection): what was learnt about the
+ * recording when it was read, and its parsed samples.
  *
  * An entry file is one header line `patternfold-cache 1 <key> <sha256 of the rest>` followed
  * by the payload: JSON, or for samples their binary64 bytes. It is written under a temporary name and renamed into place (atomic on
@@ -22,7 +24,7 @@ const HEADER = 'patternfold-cache 1';
 export const CACHE_MARKER = 'patternfold-cache.json';
 /** Cache Directory Tagging Specification (Ford 2004): backup tools skip a folder holding it [M]. */
 const CACHEDIR_TAG = 'Signature: 8a477f597d28d172789f06886806bc55\n# This folder is a patternfold feature cache; it can be deleted at any time.\n';
-const KINDS = ['cells', 'recordings', 'series'] as const;
+const KINDS = ['cells', 'packs', 'recordings', 'series'] as const;
 export type EntryKind = (typeof KINDS)[number];
 
 /** A cache folder, opened for reading and writing entries. */
@@ -252,7 +254,7 @@ function forEachEntry(root: string, visit: (path: string, kind: EntryKind, size:
  */
 export function summariseCache(dir: string): CacheSummary {
   const root = resolve(dir);
-  const summary: CacheSummary = { dir: root, exists: existsSync(root), entries: { cells: 0, recordings: 0, series: 0 }, bytes: 0, oldest: null, newest: null };
+  const summary: CacheSummary = { dir: root, exists: existsSync(root), entries: { cells: 0, packs: 0, recordings: 0, series: 0 }, bytes: 0, oldest: null, newest: null };
   if (!summary.exists) return summary;
   forEachEntry(root, (_path, kind, size, mtime) => {
     summary.entries[kind]++;
@@ -297,5 +299,5 @@ export function clearCache(dir: string): { entries: number; bytes: number } {
   requireCacheFolder(root, 'clear');
   const before = summariseCache(root);
   for (const kind of KINDS) rmSync(join(root, kind), { recursive: true, force: true });
-  return { entries: before.entries.cells + before.entries.recordings + before.entries.series, bytes: before.bytes };
+  return { entries: Object.values(before.entries).reduce((a, n) => a + n, 0), bytes: before.bytes };
 }

@@ -47,6 +47,8 @@ export interface RecordingOutcome {
    * caller dropped them to bound memory (see computeRecordings).
    */
   series: Float64Array | null;
+  /** True when every cell came from the recording's pack (so the pack needs no update). */
+  packed: boolean;
   warnings: string[];
 }
 
@@ -74,6 +76,51 @@ export function cellKeyMaker(sha256: string, signal: SignalSettings, options: Fe
   return (cell) => keyOf({ order: cell.order, delay: cell.delay, scale: cell.scale });
 }
 
+/** Cache key of the pack of one recording's cells: the cell keys' parts without the cell. */
+export function packCacheKey(sha256: string, signal: SignalSettings, options: FeatureOptions): string {
+  const jitter = options.ties === 'jitter';
+  return cacheKey({
+    pack: 1,
+    definitions: FEATURE_DEFINITIONS_VERSION,
+    file: sha256,
+    signal: { column: signal.column, start: signal.start, length: signal.length },
+    ties: options.ties,
+    jitterRepeats: jitter ? options.jitterRepeats : null,
+    jitterSeed: jitter ? options.seed : null,
+    scaleForm: options.scaleForm,
+    minWindowsPerPattern: options.minWindowsPerPattern,
+  });
+}
+
+/** The payload of a pack entry. */
+interface CellPack {
+  cells: CellFeatures[];
+}
+
+/** The cells of a pack by cellId (empty when the pack is absent or corrupt). */
+function readPack(cache: FeatureCache, key: string): Map<string, CellFeatures> {
+  const pack = cache.read<CellPack>('packs', key);
+  return new Map((Array.isArray(pack?.cells) ? pack.cells : []).map((c) => [cellId(c), c]));
+}
+
+/**
+ * Adds `cells` to the pack (read again just before, so cells another writer added stay),
+ * ordered by (order, delay, scale). Concurrent writers of one pack may lose each other's
+ * additions; those cells are still in their own entries, which a lookup falls back to.
+ */
+function updatePack(cache: FeatureCache, key: string, cells: readonly CellFeatures[]): void {
+  const packed = readPack(cache, key);
+  const before = packed.size;
+  let changed = false;
+  for (const cell of cells) {
+    if (!packed.has(cellId(cell))) changed = true;
+    packed.set(cellId(cell), cell);
+  }
+  if (!changed && before > 0) return;
+  const sorted = [...packed.values()].sort((a, b) => a.order - b.order || a.delay - b.delay || a.scale - b.scale);
+  cache.write('packs', key, { cells: sorted } satisfies CellPack);
+}
+
 /** Cache key of the parsed samples of one recording (file content and signal selection). */
 export function seriesCacheKey(sha256: string, signal: SignalSettings): string {
   return cacheKey({ series: 1, file: sha256, signal: { column: signal.column, start: signal.start, length: signal.length } });
@@ -95,9 +142,9 @@ export function factsCacheKey(sha256: string, signal: SignalSettings): string {
  */
 export async function recordingFeatures(task: RecordingTask): Promise<RecordingOutcome> {
   const cache = task.cacheDir === null ? null : openFeatureCache(task.cacheDir);
-  const lookup = cache ? await lookUp(task, cache) : { file: await readRecordingFile(task.path), facts: null, found: [], samples: null };
+  const lookup = cache ? await lookUp(task, cache) : { file: await readRecordingFile(task.path), facts: null, found: [], samples: null, packedAll: false };
   if (lookup.facts && lookup.found.length === task.cells.length && lookup.found.every((c) => c !== null)) {
-    return { facts: lookup.facts, cells: lookup.found as CellFeatures[], computed: [], parsed: false, factsComputed: false, series: null, warnings: cache?.warnings ?? [] };
+    return { facts: lookup.facts, cells: lookup.found as CellFeatures[], computed: [], parsed: false, factsComputed: false, series: null, packed: lookup.packedAll, warnings: cache?.warnings ?? [] };
   }
   return computeMissing(task, lookup, cache);
 }
@@ -110,6 +157,8 @@ interface Lookup {
   found: (CellFeatures | null)[];
   /** The samples from the series entry, looked up only when a cell is missing and the facts are known. */
   samples: Float64Array | null;
+  /** True when the pack held every cell asked for. */
+  packedAll: boolean;
 }
 
 /** Reads the file once and looks its facts, cells and (when a cell is missing) samples up by its fingerprint. */
@@ -117,10 +166,12 @@ async function lookUp(task: RecordingTask, cache: FeatureCache): Promise<Lookup>
   const file = await readRecordingFile(task.path);
   const stored = cache.read<RecordingFacts>('recordings', factsCacheKey(file.sha256, task.signal));
   const facts = stored?.sha256 === file.sha256 ? stored : null;
+  const packed = readPack(cache, packCacheKey(file.sha256, task.signal, task.options));
   const keyOf = cellKeyMaker(file.sha256, task.signal, task.options);
-  const found = task.cells.map((c) => cache.read<CellFeatures>('cells', keyOf(c)));
+  const found = task.cells.map((c) => packed.get(cellId(c)) ?? cache.read<CellFeatures>('cells', keyOf(c)));
   const samples = facts && found.some((c) => c === null) ? cache.readSamples(seriesCacheKey(file.sha256, task.signal)) : null;
-  return { file, facts, found, samples: samples && samples.length === facts!.summary.length ? samples : null };
+  const packedAll = task.cells.every((c) => packed.has(cellId(c)));
+  return { file, facts, found, samples: samples && samples.length === facts!.summary.length ? samples : null, packedAll };
 }
 
 /** Parses the file (unless its samples were cached) and computes the cells the lookup did not find. */
@@ -147,6 +198,7 @@ function computeMissing(task: RecordingTask, lookup: Lookup, cache: FeatureCache
     parsed: parsed !== null,
     factsComputed: lookup.facts === null,
     series: parsed !== null && cache !== null ? values : null,
+    packed: false,
     warnings: cache?.warnings ?? [],
   };
 }
@@ -174,6 +226,7 @@ export function storeOutcome(task: RecordingTask, outcome: RecordingOutcome, cac
   for (const cell of outcome.cells) {
     if (computed.has(cellId(cell))) cache.write('cells', keyOf(cell), cell);
   }
+  if (!outcome.packed) updatePack(cache, packCacheKey(outcome.facts.sha256, task.signal, task.options), outcome.cells);
   if (outcome.series) cache.writeSamples(seriesCacheKey(outcome.facts.sha256, task.signal), outcome.series);
   if (outcome.factsComputed) cache.write('recordings', factsCacheKey(outcome.facts.sha256, task.signal), outcome.facts);
 }

@@ -70,7 +70,7 @@ function corruptCacheEntries(dir: string): string[] {
     for (const entry of readdirSync(folder, { withFileTypes: true })) {
       const path = join(folder, entry.name);
       if (entry.isDirectory()) walk(path);
-      else if (!entry.name.startsWith('.') && /^(cells|recordings|series)$/.test(relative(root, path).split(sep)[0])) {
+      else if (!entry.name.startsWith('.') && /^(cells|packs|recordings|series)$/.test(relative(root, path).split(sep)[0])) {
         const bytes = readFileSync(path);
         const newline = bytes.indexOf(0x0a);
         const [magic, , , checksum] = bytes.toString('latin1', 0, newline).split(' ');

@@ -80,15 +80,39 @@ describe('feature cache', () => {
     expect((await features(dir, 'r3', ['signal.start=10'])).count).toBe(48);
   });
 
+  it('a rerun reads one pack per recording: with the cell entries gone it still computes nothing', async () => {
+    const dir = studyFolder();
+    const cold = await features(dir, 'cold');
+    rmSync(join(dir, 'cache', 'cells'), { recursive: true });
+    const again = await features(dir, 'again');
+    expect(again.count).toBe(0);
+    expect(again.csv).toBe(cold.csv);
+  });
+
   it('a corrupted entry is detected, reported, recomputed and rewritten — never used', async () => {
     const dir = studyFolder();
     const cold = await features(dir, 'cold');
-    const cellsDir = join(dir, 'cache', 'cells');
-    const prefix = readdirSync(cellsDir).sort()[0];
-    const entry = join(cellsDir, prefix, readdirSync(join(cellsDir, prefix)).sort()[0]);
-    const original = readFileSync(entry, 'utf8');
+    const firstEntry = (kind: string) => {
+      const kindDir = join(dir, 'cache', kind);
+      const prefix = readdirSync(kindDir).sort()[0];
+      return join(kindDir, prefix, readdirSync(join(kindDir, prefix)).sort()[0]);
+    };
     // change one digit of the payload, keeping the JSON valid
-    const tampered = original.replace(/(\d)(\d)(,)/, (_m, a: string, b: string, c: string) => `${a}${(Number(b) + 1) % 10}${c}`);
+    const tamper = (text: string) => text.replace(/(\d)(\d)(,)/, (_m, a: string, b: string, c: string) => `${a}${(Number(b) + 1) % 10}${c}`);
+    // a corrupt pack: its cells come from their own entries, nothing is recomputed, the pack is rewritten
+    const pack = firstEntry('packs');
+    const packText = readFileSync(pack, 'utf8');
+    writeFileSync(pack, tamper(packText));
+    const afterPack = await features(dir, 'after-pack');
+    expect(afterPack.count).toBe(0);
+    expect(afterPack.warnings.some((w) => w.includes('is corrupt') && w.includes(pack))).toBe(true);
+    expect(afterPack.csv).toBe(cold.csv);
+    expect(readFileSync(pack, 'utf8')).toBe(packText);
+    // a corrupt cell entry, with the packs gone: that cell is recomputed and rewritten
+    rmSync(join(dir, 'cache', 'packs'), { recursive: true });
+    const entry = firstEntry('cells');
+    const original = readFileSync(entry, 'utf8');
+    const tampered = tamper(original);
     expect(tampered).not.toBe(original);
     writeFileSync(entry, tampered);
     const rerun = await features(dir, 'rerun');
@@ -96,6 +120,7 @@ describe('feature cache', () => {
     expect(rerun.warnings.some((w) => w.includes('is corrupt') && w.includes(entry))).toBe(true);
     expect(rerun.csv).toBe(cold.csv);
     expect(readFileSync(entry, 'utf8')).toBe(original);
+    rmSync(join(dir, 'cache', 'packs'), { recursive: true });
     writeFileSync(entry, 'garbage');
     expect((await features(dir, 'r2')).count).toBe(1);
   });
@@ -121,13 +146,13 @@ describe('feature cache', () => {
     await features(dir, 'cold');
     const cache = join(dir, 'cache');
     const s = summariseCache(cache);
-    expect(s.entries).toEqual({ cells: 4 * 8, recordings: 4, series: 4 });
+    expect(s.entries).toEqual({ cells: 4 * 8, packs: 4, recordings: 4, series: 4 });
     expect(s.bytes).toBeGreaterThan(0);
     expect(pruneCache(cache, 1).entries).toBe(0);
-    expect(pruneCache(cache, 0, new Date(Date.now() + 2 * 86400000)).entries).toBe(40);
-    expect(summariseCache(cache).entries).toEqual({ cells: 0, recordings: 0, series: 0 });
+    expect(pruneCache(cache, 0, new Date(Date.now() + 2 * 86400000)).entries).toBe(44);
+    expect(summariseCache(cache).entries).toEqual({ cells: 0, packs: 0, recordings: 0, series: 0 });
     await features(dir, 'again');
-    expect(clearCache(cache).entries).toBe(40);
+    expect(clearCache(cache).entries).toBe(44);
     expect(() => clearCache(join(dir, 'a'))).toThrow(/is not a patternfold cache folder/);
   });
 
@@ -145,7 +170,7 @@ describe('feature cache', () => {
     const study = loadStudy(join(dir, 'study.yaml'));
     const cacheDir = join(dir, 'cache');
     await computeFeatureStage(study, undefined, { cacheDir, pool: null, seriesBudgetBytes: 300 * 8 * 2 }); // room for two recordings of 300 samples
-    expect(summariseCache(cacheDir).entries).toEqual({ cells: 6 * 8, recordings: 6, series: 2 });
+    expect(summariseCache(cacheDir).entries).toEqual({ cells: 6 * 8, packs: 6, recordings: 6, series: 2 });
   });
 
   it('a rerun that computes new cells takes the facts and the samples from the cache instead of parsing the file again', async () => {

@@ -60,12 +60,12 @@ describe('run records', () => {
       expect(runs).toHaveLength(2);
       expect(new Set(runs).size).toBe(2);
       const shown = await cli('cache', 'study.yaml');
-      expect(shown.out).toMatch(/12 cell entries, 6 recording entries, 6 series entries/);
+      expect(shown.out).toMatch(/12 cell entries, 6 pack entries, 6 recording entries, 6 series entries/);
       const cleared = await cli('cache', 'study.yaml', '--clear');
-      expect(cleared.out).toMatch(/removed 24 entries/);
+      expect(cleared.out).toMatch(/removed 30 entries/);
       expect((await cli('cache', 'study.yaml', '--prune-older-than', 'soon')).code).toBe(2);
       expect((await cli('features', 'study.yaml', '--quiet', '--no-cache')).code).toBe(0);
-      expect((await cli('cache', 'study.yaml')).out).toMatch(/0 cell entries, 0 recording entries, 0 series entries/);
+      expect((await cli('cache', 'study.yaml')).out).toMatch(/0 cell entries, 0 pack entries, 0 recording entries, 0 series entries/);
       expect((await cli('features', 'study.yaml', '--shard', '1/2')).out).toMatch(/shard 1\/2: 6 \(recording x cell\) unit\(s\) over 3 recording\(s\): 6 computed, 0 already cached/);
       expect(existsSync(join(dir, '.patternfold-cache', 'CACHEDIR.TAG'))).toBe(true);
     } finally {
