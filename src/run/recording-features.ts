@@ -53,43 +53,39 @@ export interface RecordingOutcome {
 }
 
 /**
- * Cache keys of the cells of one recording: file content, signal selection, cell, tie rule,
- * jitter draws and seed (only under the jitter rule, the only one that draws), scale form,
- * the flagging threshold and FEATURE_DEFINITIONS_VERSION, as SHA-256 hex strings. The parts
- * shared by every cell are put in canonical form once.
+ * The key parts shared by a recording's cells and its pack: file content, signal selection,
+ * tie rule, jitter draws and seed (only under the jitter rule, the only one that draws), scale
+ * form, the flagging threshold and FEATURE_DEFINITIONS_VERSION.
  */
-export function cellKeyMaker(sha256: string, signal: SignalSettings, options: FeatureOptions): (cell: Cell) => string {
+function cellSettingsParts(sha256: string, signal: SignalSettings, options: FeatureOptions): Record<string, unknown> {
   const jitter = options.ties === 'jitter';
-  const keyOf = keyFamily(
-    {
-      definitions: FEATURE_DEFINITIONS_VERSION,
-      file: sha256,
-      signal: { column: signal.column, start: signal.start, length: signal.length },
-      ties: options.ties,
-      jitterRepeats: jitter ? options.jitterRepeats : null,
-      jitterSeed: jitter ? options.seed : null,
-      scaleForm: options.scaleForm,
-      minWindowsPerPattern: options.minWindowsPerPattern,
-    },
-    'cell',
-  );
-  return (cell) => keyOf({ order: cell.order, delay: cell.delay, scale: cell.scale });
-}
-
-/** Cache key of the pack of one recording's cells: the cell keys' parts without the cell. */
-export function packCacheKey(sha256: string, signal: SignalSettings, options: FeatureOptions): string {
-  const jitter = options.ties === 'jitter';
-  return cacheKey({
-    pack: 1,
+  return {
     definitions: FEATURE_DEFINITIONS_VERSION,
     file: sha256,
-    signal: { column: signal.column, start: signal.start, length: signal.length },
+    signal: selectionParts(signal),
     ties: options.ties,
     jitterRepeats: jitter ? options.jitterRepeats : null,
     jitterSeed: jitter ? options.seed : null,
     scaleForm: options.scaleForm,
     minWindowsPerPattern: options.minWindowsPerPattern,
-  });
+  };
+}
+
+/** The signal selection as a key part. */
+const selectionParts = (signal: SignalSettings) => ({ column: signal.column, start: signal.start, length: signal.length });
+
+/**
+ * Cache keys of the cells of one recording (the shared parts of {@link cellSettingsParts} and
+ * the cell), as SHA-256 hex strings; the shared parts are put in canonical form once.
+ */
+export function cellKeyMaker(sha256: string, signal: SignalSettings, options: FeatureOptions): (cell: Cell) => string {
+  const keyOf = keyFamily(cellSettingsParts(sha256, signal, options), 'cell');
+  return (cell) => keyOf({ order: cell.order, delay: cell.delay, scale: cell.scale });
+}
+
+/** Cache key of the pack of one recording's cells: the cell keys' parts without the cell. */
+export function packCacheKey(sha256: string, signal: SignalSettings, options: FeatureOptions): string {
+  return cacheKey({ pack: 1, ...cellSettingsParts(sha256, signal, options) });
 }
 
 /** The payload of a pack entry. */
@@ -123,12 +119,12 @@ function updatePack(cache: FeatureCache, key: string, cells: readonly CellFeatur
 
 /** Cache key of the parsed samples of one recording (file content and signal selection). */
 export function seriesCacheKey(sha256: string, signal: SignalSettings): string {
-  return cacheKey({ series: 1, file: sha256, signal: { column: signal.column, start: signal.start, length: signal.length } });
+  return cacheKey({ series: 1, file: sha256, signal: selectionParts(signal) });
 }
 
 /** Cache key of the facts of one recording (file content and signal selection). */
 export function factsCacheKey(sha256: string, signal: SignalSettings): string {
-  return cacheKey({ facts: 2, file: sha256, signal: { column: signal.column, start: signal.start, length: signal.length } });
+  return cacheKey({ facts: 2, file: sha256, signal: selectionParts(signal) });
 }
 
 /**
