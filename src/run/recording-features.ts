@@ -200,7 +200,7 @@ function computeMissing(task: RecordingTask, lookup: Lookup, cache: FeatureCache
 }
 
 /** What is learnt about a recording from its parsed series (O(n); see describeSeries). */
-function factsOf(series: Series, sha256: string): RecordingFacts {
+export function factsOf(series: Series, sha256: string): RecordingFacts {
   return {
     sha256,
     format: series.format,
