@@ -34,6 +34,9 @@ export function pooledPermutationStage(pool: WorkPool, matrix: FeatureMatrix, se
   };
 }
 
+/** Resolves after the event loop has turned once, so that pending signal handlers and I/O run. */
+export const nextTurn = (): Promise<void> => new Promise<void>((resolve) => setImmediate(resolve));
+
 /**
  * A PermutationStage that computes the permutations in this thread, one at a time, and lets
  * the event loop run between them, so that Ctrl-C (a signal handler) is served within one
@@ -41,7 +44,7 @@ export function pooledPermutationStage(pool: WorkPool, matrix: FeatureMatrix, se
  */
 export const inThreadPermutationStage: PermutationStage = (study, observed, B, stopAfter, onEach) => {
   const compute = async (from: number, to: number) => {
-    await new Promise<void>((resolve) => setImmediate(resolve));
+    await nextTurn();
     return permutedStatisticsRange(study.pipeline, from, to);
   };
   const single = Array.from({ length: B }, (_, k): [number, number] => [k, k + 1]);

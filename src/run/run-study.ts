@@ -9,7 +9,7 @@ import type { RecordingInfo } from './read-cohort.ts';
 import { computeRecordings, IN_THREAD, type FeatureWork } from './feature-work.ts';
 import { lazyPool, type LazyPool, type WorkPool } from './worker-pool.ts';
 import { featureWorkIsLarge, permutationWorkIsLarge } from './work-size.ts';
-import { inThreadPermutationStage, pooledPermutationStage } from './permutation-stage.ts';
+import { inThreadPermutationStage, nextTurn, pooledPermutationStage } from './permutation-stage.ts';
 import type { Cell } from '../features/index.ts';
 import { studyWarnings } from './warnings.ts';
 import { toArrowBytes, toCsvText } from './csv.ts';
@@ -118,7 +118,7 @@ async function computeStatistics(study: Study, stage: FeatureStage, pool: WorkPo
   const settings = { ...study.evaluation, seed: deriveSeed(study.seed, 'evaluation') };
   const permute = pool ? pooledPermutationStage(pool, recordings, settings) : inThreadPermutationStage;
   // let the event loop turn between grid cells, outer folds and repeats, so Ctrl-C is served
-  const evaluation = await evaluateStudyWith(recordings, settings, permute, onProgress, () => new Promise<void>((resolve) => setImmediate(resolve)));
+  const evaluation = await evaluateStudyWith(recordings, settings, permute, onProgress, nextTurn);
   return { evaluation, univariate: compareGroups(subjects), subjects, recordings };
 }
 
